@@ -1,0 +1,5 @@
+export * from './axis';
+export * from './processing';
+export * from './spectrum';
+export * from './extract';
+export * from './noise';
