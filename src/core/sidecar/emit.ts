@@ -1,0 +1,88 @@
+/**
+ * Canonical text of each part of a sidecar, as lines. Block style, one field per line, flow style
+ * only for short lists of scalars (`[H-3, H-4a]`), fixed decimals (ppm 4, Hz 2).
+ */
+import { parse } from 'yaml';
+import { naturalCompare, toFixedDecimal } from './decimal';
+import { normalizeAtoms } from './order';
+import { SCHEMA_ID, type Coupling, type DataRef, type Pick } from './types';
+
+/** Indent of the `- ` of list items, and of the fields inside them. */
+export const DASH_INDENT = 2;
+
+export interface FieldLine {
+  key: string;
+  /** The full line without the list dash/indent prefix, e.g. `f2_ppm: 4.1200`. */
+  text: string;
+}
+
+/**
+ * A scalar as YAML text: plain when the plain form reads back as the same string, otherwise
+ * double-quoted with JSON escapes (every JSON string is a valid YAML 1.2 double-quoted scalar,
+ * YAML 1.2.2 §7.3.1). Reading back through the parser catches the plain forms that would change
+ * type (`true`, `1.5`, `null`) or meaning (`a: b`, `# x`, `[x]`).
+ */
+export function scalar(value: string, inFlow: boolean): string {
+  const safeChars = inFlow ? /^[^\s,[\]{}#&*!|>'"%@`][^,[\]{}\n\r\t]*$/ : /^[^\s[\]{}#&*!|>'"%@`,][^\n\r\t]*$/;
+  if (value === value.trim() && safeChars.test(value) && readsBack(value, inFlow)) return value;
+  return JSON.stringify(value);
+}
+
+function readsBack(value: string, inFlow: boolean): boolean {
+  try {
+    const back: unknown = inFlow ? parse(`[${value}]`) : parse(`k: ${value}`);
+    if (inFlow) return Array.isArray(back) && back.length === 1 && back[0] === value;
+    return typeof back === 'object' && back !== null && (back as Record<string, unknown>)['k'] === value;
+  } catch {
+    return false;
+  }
+}
+
+const flowList = (items: readonly string[]): string => `[${items.join(', ')}]`;
+const ppm = (x: number): string => toFixedDecimal(x, 4);
+const hz = (x: number): string => toFixedDecimal(x, 2);
+
+export function headLines(data: DataRef): string[] {
+  return [`schema: ${SCHEMA_ID}`, 'data:', `  file: ${scalar(data.file, false)}`, `  sha256: ${scalar(data.sha256, false)}`];
+}
+
+export function pickFields(p: Pick): FieldLine[] {
+  const label = p.label.length === 1 ? scalar(p.label[0] ?? '', false) : flowList(p.label.map((l) => scalar(l, true)));
+  const out: FieldLine[] = [
+    { key: 'id', text: `id: ${scalar(p.id, false)}` },
+    { key: 'f2_ppm', text: `f2_ppm: ${ppm(p.f2Ppm)}` },
+  ];
+  if (p.f1Ppm !== undefined) out.push({ key: 'f1_ppm', text: `f1_ppm: ${ppm(p.f1Ppm)}` });
+  out.push({ key: 'label', text: `label: ${label}` });
+  if (p.kind !== undefined) out.push({ key: 'kind', text: `kind: ${p.kind}` });
+  if (p.note !== undefined) out.push({ key: 'note', text: `note: ${scalar(p.note, false)}` });
+  return out;
+}
+
+export function couplingFields(c: Coupling): FieldLine[] {
+  const flags = [...new Set(c.flags)].sort(naturalCompare);
+  const out: FieldLine[] = [
+    { key: 'atoms', text: `atoms: ${flowList(normalizeAtoms(c.atoms).map((a) => scalar(a, true)))}` },
+    { key: 'j_hz', text: `j_hz: ${hz(c.jHz)}` },
+    { key: 'j_sd_hz', text: `j_sd_hz: ${hz(c.jSdHz)}` },
+    { key: 'method', text: `method: ${c.method}` },
+    { key: 'dimension', text: `dimension: ${c.dimension}` },
+    { key: 'picks', text: `picks: ${flowList(c.picks.map((p) => scalar(p, true)))}` },
+    { key: 'flags', text: `flags: ${flowList(flags.map((f) => scalar(f, true)))}` },
+  ];
+  if (c.passiveHz !== undefined) out.push({ key: 'passive_hz', text: `passive_hz: ${flowList(c.passiveHz.map(hz))}` });
+  if (c.linewidthHz !== undefined) out.push({ key: 'linewidth_hz', text: `linewidth_hz: ${hz(c.linewidthHz)}` });
+  if (c.note !== undefined) out.push({ key: 'note', text: `note: ${scalar(c.note, false)}` });
+  return out;
+}
+
+/** Field lines as list-item lines: the first behind `- `, the rest indented under it. */
+export function itemLines(fields: readonly FieldLine[], dashIndent: number = DASH_INDENT): string[] {
+  const pad = ' '.repeat(dashIndent);
+  return fields.map((f, i) => (i === 0 ? `${pad}- ${f.text}` : `${pad}  ${f.text}`));
+}
+
+/** The canonical key line of a list section. */
+export function listKeyLine(key: string, empty: boolean): string {
+  return empty ? `${key}: []` : `${key}:`;
+}

@@ -1,0 +1,184 @@
+/** Schema v1 validation of a parsed YAML document (see types.ts and SCHEMA.md). */
+import { isMap, isScalar, isSeq, type Document, type Node, type YAMLMap } from 'yaml';
+import { naturalCompare } from './decimal';
+import { compareCouplings, couplingKeyString, normalizeAtoms } from './order';
+import { describe, DiagnosticSink, MapReader, numberItem, textItem } from './reader';
+import {
+  COUPLING_METHODS, DIMENSIONS, PICK_KINDS, SCHEMA_ID, SCHEMA_PREFIX,
+  type Coupling, type DataRef, type Pick, type Sidecar,
+} from './types';
+
+const ID_PATTERN = /^[A-Za-z0-9][A-Za-z0-9._~+-]*$/;
+const SHA256_PATTERN = /^[0-9a-f]{64}$/;
+
+export function validateDocument(doc: Document, sink: DiagnosticSink): Sidecar | null {
+  const root = doc.contents;
+  if (!isMap(root)) {
+    sink.at(root?.range?.[0] ?? 0, 'error', 'wrong-type', undefined,
+      `expected a mapping with schema, data, picks and couplings, found ${describe(root)}`);
+    return null;
+  }
+  const top = new MapReader(root, '', sink);
+  if (!checkSchema(top)) return null;
+  const data = readData(top);
+  const picks = readList(top, 'picks', readPick, sink) ?? [];
+  const couplings = readList(top, 'couplings', readCoupling, sink) ?? [];
+  top.finish();
+  if (data === undefined) return null;
+  checkPickIds(picks, sink);
+  checkCouplings(couplings, picks, sink);
+  return {
+    schema: SCHEMA_ID,
+    data,
+    picks: picks.map((p) => p.value),
+    couplings: couplings.map((c) => c.value),
+  };
+}
+
+function checkSchema(top: MapReader): boolean {
+  const node = top.node('schema', true);
+  if (node === undefined) return false;
+  const v = isScalar(node) ? node.value : undefined;
+  if (v === SCHEMA_ID) return true;
+  const version = typeof v === 'string' && v.startsWith(SCHEMA_PREFIX) ? Number(v.slice(SCHEMA_PREFIX.length)) : NaN;
+  if (Number.isInteger(version) && version > 1) {
+    top.fail(node, 'future-schema', 'schema',
+      `${String(v)} was written by a newer version; this one reads ${SCHEMA_ID} only`);
+  } else {
+    top.fail(node, 'unknown-schema', 'schema', `expected ${SCHEMA_ID}, found ${describe(node)}`);
+  }
+  return false;
+}
+
+function readData(top: MapReader): DataRef | undefined {
+  const node = top.node('data', true);
+  if (node === undefined) return undefined;
+  if (!isMap(node)) {
+    top.fail(node, 'wrong-type', 'data', `expected a mapping with file and sha256, found ${describe(node)}`);
+    return undefined;
+  }
+  const r = new MapReader(node, 'data', top.sink);
+  const file = r.string('file', true);
+  const sha = r.node('sha256', true);
+  let sha256: string | undefined;
+  if (sha !== undefined) {
+    const v = isScalar(sha) ? String(sha.value) : '';
+    if (SHA256_PATTERN.test(v)) sha256 = v;
+    else r.fail(sha, 'invalid-value', 'sha256', `expected 64 lowercase hex digits, found ${describe(sha)}`);
+  }
+  r.finish();
+  return file !== undefined && sha256 !== undefined ? { file, sha256 } : undefined;
+}
+
+/** An item that passed validation, with the node it came from (for positions). */
+export interface Located<T> {
+  value: T;
+  node: YAMLMap;
+  path: string;
+}
+
+function readList<T>(top: MapReader, key: 'picks' | 'couplings',
+  read: (r: MapReader) => T | undefined, sink: DiagnosticSink): Located<T>[] | undefined {
+  const node = top.node(key, true);
+  if (node === undefined) return undefined;
+  if (!isSeq(node)) {
+    top.fail(node, 'wrong-type', key, `expected a list, found ${describe(node)}`);
+    return undefined;
+  }
+  const out: Located<T>[] = [];
+  (node.items as Node[]).forEach((item, i) => {
+    const path = `${key}[${i}]`;
+    if (!isMap(item)) {
+      top.fail(item, 'wrong-type', `${key}[${i}]`, `expected a mapping, found ${describe(item)}`);
+      return;
+    }
+    const r = new MapReader(item, path, sink);
+    const value = read(r);
+    r.finish();
+    if (value !== undefined && r.ok) out.push({ value, node: item, path });
+    else top.ok = false;
+  });
+  return out;
+}
+
+function readPick(r: MapReader): Pick | undefined {
+  const id = r.string('id', true);
+  if (id !== undefined && !ID_PATTERN.test(id)) {
+    r.fail(r.node('id', true), 'invalid-value', 'id', `"${id}" is not a valid id (letters, digits, . _ ~ + -)`);
+  }
+  const f2Ppm = r.number('f2_ppm', true);
+  const f1Ppm = r.number('f1_ppm', false);
+  const label = r.list('label', true, textItem, 'atom labels', true);
+  if (label !== undefined && label.length > 2) {
+    r.fail(r.node('label', true), 'invalid-value', 'label', `expected at most two atom labels, found ${label.length}`);
+  }
+  const kind = r.choice('kind', PICK_KINDS, false);
+  const note = r.string('note', false);
+  if (id === undefined || f2Ppm === undefined || label === undefined || !r.ok) return undefined;
+  return {
+    id, f2Ppm, label,
+    ...(f1Ppm !== undefined && { f1Ppm }),
+    ...(kind !== undefined && { kind }),
+    ...(note !== undefined && { note }),
+  };
+}
+
+function readCoupling(r: MapReader): Coupling | undefined {
+  const atoms = r.list('atoms', true, textItem, 'atom labels');
+  if (atoms !== undefined && (atoms.length !== 2 || atoms[0] === atoms[1])) {
+    r.fail(r.node('atoms', true), 'invalid-value', 'atoms', `expected two different atom labels, found ${atoms.length === 2 ? 'the same label twice' : String(atoms.length)}`);
+  }
+  const jHz = r.number('j_hz', true);
+  const jSdHz = r.number('j_sd_hz', true);
+  if (jSdHz !== undefined && jSdHz < 0) r.fail(r.node('j_sd_hz', true), 'invalid-value', 'j_sd_hz', 'must not be negative');
+  const method = r.choice('method', COUPLING_METHODS, true);
+  const dimension = r.choice('dimension', DIMENSIONS, true);
+  const picks = r.list('picks', true, textItem, 'pick ids');
+  const flags = r.list('flags', true, textItem, 'flag names');
+  const passiveHz = r.list('passive_hz', false, numberItem, 'numbers (Hz)');
+  const linewidthHz = r.number('linewidth_hz', false);
+  if (linewidthHz !== undefined && linewidthHz <= 0) r.fail(r.node('linewidth_hz', false), 'invalid-value', 'linewidth_hz', 'must be positive');
+  const note = r.string('note', false);
+  if (atoms === undefined || jHz === undefined || jSdHz === undefined || method === undefined
+    || dimension === undefined || picks === undefined || flags === undefined || !r.ok) return undefined;
+  return {
+    atoms: normalizeAtoms([atoms[0] ?? '', atoms[1] ?? '']), jHz, jSdHz, method, dimension, picks, flags,
+    ...(passiveHz !== undefined && { passiveHz }),
+    ...(linewidthHz !== undefined && { linewidthHz }),
+    ...(note !== undefined && { note }),
+  };
+}
+
+function checkPickIds(picks: Located<Pick>[], sink: DiagnosticSink): void {
+  const seen = new Map<string, string>();
+  picks.forEach((p, i) => {
+    const first = seen.get(p.value.id);
+    if (first !== undefined) {
+      sink.node(p.node, 0, 'error', 'duplicate-pick-id', `${p.path}.id`, `id "${p.value.id}" is already used by ${first}`);
+    } else seen.set(p.value.id, p.path);
+    const prev = picks[i - 1];
+    if (prev !== undefined && naturalCompare(prev.value.id, p.value.id) > 0) {
+      sink.node(p.node, 0, 'info', 'unsorted', p.path, `picks are not sorted by id; a rewrite will sort them`);
+    }
+  });
+}
+
+function checkCouplings(couplings: Located<Coupling>[], picks: Located<Pick>[], sink: DiagnosticSink): void {
+  const ids = new Set(picks.map((p) => p.value.id));
+  const seen = new Map<string, string>();
+  couplings.forEach((c, i) => {
+    const key = couplingKeyString(c.value);
+    const first = seen.get(key);
+    if (first !== undefined) {
+      sink.node(c.node, 0, 'error', 'duplicate-coupling', c.path,
+        `${c.value.atoms.join('/')} ${c.value.method} ${c.value.dimension} is already recorded by ${first}`);
+    } else seen.set(key, c.path);
+    for (const id of c.value.picks) {
+      if (!ids.has(id)) sink.node(c.node, 0, 'warning', 'unknown-pick', `${c.path}.picks`, `refers to pick "${id}", which is not in picks`);
+    }
+    const prev = couplings[i - 1];
+    if (prev !== undefined && compareCouplings(prev.value, c.value) > 0) {
+      sink.node(c.node, 0, 'info', 'unsorted', c.path, 'couplings are not sorted; a rewrite will sort them');
+    }
+  });
+}
