@@ -64,20 +64,21 @@ function isDigit(c: number): boolean {
 
 /** Read digits and one optional '.' from `p`, starting from magnitude `m`; sets numEnd/numDecimals. */
 function readMagnitude(src: string, p: number, end: number, m: number): number {
-  let scale = 1;
+  let decimals = 0;
   let dot = false;
   let q = p;
   for (; q < end; q++) {
     const c = src.charCodeAt(q);
-    if (isDigit(c)) {
+    if (c >= 48 && c <= 57) {
       m = m * 10 + (c - 48);
-      if (dot) scale *= 10;
+      if (dot) decimals++;
     } else if (c === 46 && !dot) dot = true;
     else break;
   }
   numEnd = q;
-  numDecimals = dot ? Math.round(Math.log10(scale)) : 0;
-  return m / scale; // exact for m < 2^53 and scale <= 1e22: one correctly rounded division
+  numDecimals = decimals;
+  // One correctly rounded division, exact as Number(text) for m < 2^53 and up to 22 decimals.
+  return decimals === 0 ? m : m / 10 ** decimals;
 }
 
 /** Read an AFFN number at `p` (sign, digits, '.', exponent with sign); NaN if none is there. */

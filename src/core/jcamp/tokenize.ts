@@ -129,7 +129,7 @@ function handleRecord(r: MutableRecord, stack: OpenBlock[], done: RawBlock[], fi
     if (top && !top.isLink) {
       throw new JcampError(file, r.line, `##TITLE= inside the block "${top.title}" opened at line ${top.line}, which has no ##END=`);
     }
-    stack.push({ title: r.value, line: r.line, records: [r], isLink: false });
+    stack.push({ title: r.value.replace(/\n/g, ' '), line: r.line, records: [r], isLink: false });
     return;
   }
   if (!top) throw new JcampError(file, r.line, `##${r.rawLabel}= outside any ##TITLE= ... ##END= block`);
