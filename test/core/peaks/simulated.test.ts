@@ -1,0 +1,86 @@
+import { describe, expect, it } from 'vitest';
+import { pickCrossPeaks } from '../../../src/core/peaks/crossPeaks';
+import { nearestCrossPeak } from '../../../src/core/peaks/nearest';
+import type { CrossPeak } from '../../../src/core/peaks/types';
+import { simulateDqfCosy, type CosyPeakTruth } from '../../../src/core/simulate/dqfCosy';
+import type { SpinSystem } from '../../../src/core/simulate/spinSystem';
+import { resolutionHz } from '../../../src/core/spectrum/axis';
+import type { DimensionProcessing } from '../../../src/core/spectrum/processing';
+
+// Invented four-spin system (a CH-CH-CH2 fragment with a geminal pair), first order at 600 MHz.
+const system: SpinSystem = {
+  observeMhz: 600,
+  spins: [
+    { label: 'H-1', ppm: 4.2, linewidthHz: 1.2 },
+    { label: 'H-2', ppm: 3.85, linewidthHz: 1.2 },
+    { label: 'H-3a', ppm: 2.6, linewidthHz: 1.2 },
+    { label: 'H-3b', ppm: 2.45, linewidthHz: 1.2 },
+  ],
+  couplings: [
+    { a: 'H-1', b: 'H-2', jHz: 7.5 },
+    { a: 'H-2', b: 'H-3a', jHz: 5 },
+    { a: 'H-2', b: 'H-3b', jHz: 8.5 },
+    { a: 'H-3a', b: 'H-3b', jHz: -16 },
+  ],
+};
+// Squared cosine bell in both dimensions (common practice for DQF-COSY); F2 1.46 Hz/point,
+// F1 5.9 Hz/point after zero-filling: a typical digital resolution (references.md).
+const bell = { kind: 'sine', power: 2, shiftDeg: 90 } as const;
+const f2: DimensionProcessing = { acquiredPoints: 1024, spectralWidthHz: 3000, carrierHz: 1980, window: bell, size: 2048 };
+const f1: DimensionProcessing = { acquiredPoints: 256, spectralWidthHz: 3000, carrierHz: 1980, window: bell, size: 512 };
+
+describe('pickCrossPeaks on a simulated DQF-COSY (the simulator returns the truth)', () => {
+  const sim = simulateDqfCosy(system, { f1, f2, noise: { seed: 17, snr: 300 } });
+  const s = sim.spectrum;
+  const { peaks, noise } = pickCrossPeaks(s);
+  const r1 = resolutionHz(s.f1);
+  const r2 = resolutionHz(s.f2);
+  /** The picked peak whose centre is within 1 F2 point and 1 F1 point of a true peak. */
+  const found = (t: { f1Hz: number; f2Hz: number }): CrossPeak | undefined =>
+    peaks.find((p) => Math.abs(p.f2Hz - t.f2Hz) <= r2 && Math.abs(p.f1Hz - t.f1Hz) <= r1);
+  // Diagonal truths repeat once per coupling partner at the same place: compare distinct places.
+  const places = new Map<string, CosyPeakTruth>();
+  for (const t of sim.peaks) places.set(`${t.f1Spin}/${t.f2Spin}`, t);
+
+  it('estimates the noise the simulator added (within 10%)', () => {
+    expect(noise / sim.noiseSigma).toBeGreaterThan(0.9);
+    expect(noise / sim.noiseSigma).toBeLessThan(1.1);
+  });
+
+  it('finds every true cross and diagonal peak once, of the right kind, and nothing else', () => {
+    for (const t of places.values()) {
+      const p = found(t);
+      expect(p, `${t.kind} ${t.f1Spin}/${t.f2Spin}`).toBeDefined();
+      expect(p?.kind).toBe(t.kind);
+    }
+    expect(peaks).toHaveLength(places.size);
+  });
+
+  it('centres each peak on the true shifts within half a point in both dimensions (|S|-weighted centroid)', () => {
+    // First-order multiplets are symmetric about the shifts, so only interpolation bias and noise remain.
+    for (const t of places.values()) {
+      const p = found(t)!;
+      expect(Math.abs(p.f2Hz - t.f2Hz), `${t.f1Spin}/${t.f2Spin} F2`).toBeLessThan(0.5 * r2);
+      expect(Math.abs(p.f1Hz - t.f1Hz), `${t.f1Spin}/${t.f2Spin} F1`).toBeLessThan(0.5 * r1);
+    }
+  });
+
+  it('pairs each cross peak with the one at the swapped shifts', () => {
+    for (const t of places.values()) {
+      if (t.kind !== 'cross') continue;
+      const p = found(t)!;
+      const mirror = found({ f1Hz: t.f2Hz, f2Hz: t.f1Hz });
+      expect(mirror).toBeDefined();
+      expect(p.partner, `${t.f1Spin}/${t.f2Spin}`).not.toBeNull();
+      expect(peaks[p.partner!]).toBe(mirror);
+    }
+  });
+
+  it('returns the right peak for a click 0.01 ppm off each true centre', () => {
+    for (const t of places.values()) {
+      const i = nearestCrossPeak(peaks, t.f2Ppm + 0.01, t.f1Ppm - 0.01);
+      expect(i).not.toBeNull();
+      expect(peaks[i!]).toBe(found(t));
+    }
+  });
+});
