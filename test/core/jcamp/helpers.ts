@@ -1,0 +1,47 @@
+/** Paths to the shared check files and small test-only helpers (no expected values in here). */
+import { readFileSync } from 'node:fs';
+import path from 'node:path';
+import { JcampError } from '../../../src/core/jcamp';
+
+/** Repository root, from this file's location (test/core/jcamp). */
+const REPO_ROOT = path.resolve(__dirname, '..', '..', '..');
+
+/** A file under ../shared/checks beside the repository (the CI clone has the same layout). */
+export function checkPath(...parts: string[]): string {
+  return path.resolve(REPO_ROOT, '..', 'shared', 'checks', ...parts);
+}
+
+export function readCheck(...parts: string[]): string {
+  // JCAMP-DX is ASCII; latin1 keeps one character per byte.
+  return readFileSync(checkPath(...parts), 'latin1');
+}
+
+/** Run f, which must throw a JcampError; return it for assertions. */
+export function jcampErrorOf(f: () => unknown): JcampError {
+  try {
+    f();
+  } catch (e) {
+    if (e instanceof JcampError) return e;
+    throw new Error(`expected a JcampError, got ${String(e)}`);
+  }
+  throw new Error('expected a JcampError, nothing was thrown');
+}
+
+/** Seeded uniform numbers in [0, 1) (mulberry32), so test data is the same on every run. */
+export function seeded(seed: number): () => number {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = a;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+/** Value of the first `##LABEL=` line in a text (test-side, independent of the reader's tokenizer). */
+export function headerValue(text: string, label: string): string | undefined {
+  const re = new RegExp(`^\\s*##${label}\\s*=([^\\r\\n]*)`, 'm');
+  const m = re.exec(text);
+  return m?.[1]?.replace(/\$\$.*$/, '').trim();
+}
