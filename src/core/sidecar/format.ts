@@ -19,7 +19,7 @@ import { couplingFields, headLines, itemLines, listKeyLine, pickFields, type Fie
 import { mergeBody } from './bodyMerge';
 import { buildLayout, commentStart, isCommentLine, splitLines, type Layout, type ListLayout } from './layout';
 import { compareCouplings, comparePicks, couplingKeyString, normalizeAtoms } from './order';
-import { isWritable, parseYaml } from './parse';
+import { isWritable, parseSidecar, parseYaml } from './parse';
 import { validateDocument } from './validate';
 import { SCHEMA_ID, type Pick, type Sidecar } from './types';
 
@@ -36,12 +36,13 @@ export function normalizeSidecar(s: Sidecar): Sidecar {
 export function formatSidecar(sidecar: Sidecar, previousText?: string): string {
   const s = normalizeSidecar(sidecar);
   if (previousText === undefined) return canonicalText(s);
-  const { doc, sink, lines } = parseYaml(previousText, 'previous text');
-  const old = doc.errors.length === 0 ? validateDocument(doc, sink) : null;
-  if (old === null || !isWritable(sink.list)) {
-    const first = sink.list.find((d) => d.severity === 'error');
+  const checked = parseSidecar(previousText, 'previous text');
+  const old = checked.sidecar;
+  if (old === null || !isWritable(checked.diagnostics)) {
+    const first = checked.diagnostics.find((d) => d.severity === 'error');
     throw new Error(`cannot rewrite over a sidecar with errors: ${first?.message ?? 'unreadable'}`);
   }
+  const { doc, lines } = parseYaml(previousText, 'previous text');
   const layout = buildLayout(previousText, doc, lines);
   const kept = layout === null ? null : assemble(s, normalizeSidecar(old), layout);
   if (kept !== null && readsBackAs(kept, s)) return kept;

@@ -26,7 +26,7 @@ export function validateDocument(doc: Document, sink: DiagnosticSink): Sidecar |
   top.finish();
   if (data === undefined) return null;
   checkPickIds(picks, sink);
-  checkCouplings(couplings, picks, sink);
+  checkCouplings(couplings, allPickIds(root.get('picks', true)), sink);
   return {
     schema: SCHEMA_ID,
     data,
@@ -163,8 +163,18 @@ function checkPickIds(picks: Located<Pick>[], sink: DiagnosticSink): void {
   });
 }
 
-function checkCouplings(couplings: Located<Coupling>[], picks: Located<Pick>[], sink: DiagnosticSink): void {
-  const ids = new Set(picks.map((p) => p.value.id));
+/** Ids of all picks, valid or not, so that one bad pick does not also flag the couplings citing it. */
+function allPickIds(seq: unknown): Set<string> {
+  const ids = new Set<string>();
+  if (!isSeq(seq)) return ids;
+  for (const item of seq.items) {
+    const id: unknown = isMap(item) ? item.get('id') : undefined;
+    if (typeof id === 'string') ids.add(id);
+  }
+  return ids;
+}
+
+function checkCouplings(couplings: Located<Coupling>[], ids: ReadonlySet<string>, sink: DiagnosticSink): void {
   const seen = new Map<string, string>();
   couplings.forEach((c, i) => {
     const key = couplingKeyString(c.value);
