@@ -12,7 +12,7 @@ const samplesDir = path.join(repoRoot, 'samples');
 
 interface Truth {
   readonly compound: string;
-  readonly system: SpinSystem & { readonly couplings: readonly { a: string; b: string; jHz: number; shiftToJRatio: number }[] };
+  readonly system: Omit<SpinSystem, 'couplings'> & { readonly couplings: readonly { a: string; b: string; jHz: number; shiftToJRatio: number }[] };
 }
 
 function truthOf(id: string): Truth {
