@@ -21,7 +21,7 @@ export function buildSpectrum(block: JcampBlock, file: string): Spectrum {
   checkDataType(block, file);
   const mhz = observeMhz(block, file);
   const numDim = findLabel(block, 'NUMDIM');
-  const dims = numDim ? parseNumber(numDim.value, file, numDim.line, 'NUMDIM') : 1;
+  const dims = numDim ? parseNumber(numDim.value, file, numDim.line, 'NUMDIM') : independentColumns(block);
   if (dims === 2) return build2D(block, mhz, file);
   if (dims !== 1) throw new JcampError(file, numDim?.line ?? block.line, `${dims} dimensions: only 1D and 2D spectra are read`, 'NUMDIM');
   return build1D(block, mhz, file);
@@ -29,6 +29,13 @@ export function buildSpectrum(block: JcampBlock, file: string): Spectrum {
 
 export function isNmrSpectrum(block: JcampBlock): boolean {
   return /\bNMR SPECTRUM\b/.test(block.dataType) && block.pages.length > 0;
+}
+
+/** Without ##NUM DIM=, the number of INDEPENDENT NTUPLES columns (1 for XYDATA). */
+function independentColumns(block: JcampBlock): number {
+  const types = findLabel(block, 'VARTYPE');
+  if (!types) return 1;
+  return Math.max(1, splitList(types.value).filter((t) => t.toUpperCase() === 'INDEPENDENT').length);
 }
 
 function checkDataType(block: JcampBlock, file: string): void {
@@ -85,8 +92,13 @@ function processingOf(block: JcampBlock, suffix: string, file: string): Dimensio
 
 function build1D(block: JcampBlock, mhz: number, file: string): Spectrum1D {
   const sym = mainSymbol(block);
-  const page = block.pages.find((p) => p.ySymbol === sym) ?? block.pages[0];
+  const pages = block.pages.filter((p) => p.ySymbol === sym);
+  const page = pages[0];
   if (!page) throw new JcampError(file, block.line, 'no spectrum data');
+  if (pages.length > 1) {
+    // Several pages of one ordinate without a second independent variable: not one 1D spectrum.
+    throw new JcampError(file, pages[1]?.line ?? page.line, `${pages.length} pages of ${sym} in a 1D block: add ##NUM DIM= 2 for a 2D spectrum`);
+  }
   let axis = pageAxis(page, mhz, file);
   axis = applyShiftReference(block, axis, file);
   return make1D(block.title, page.values, axis, processingOf(block, '', file));

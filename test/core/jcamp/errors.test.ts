@@ -1,36 +1,14 @@
 /**
  * One fixture per kind of bad input: each must give a JcampError naming the file, the line and
- * what is wrong, never a TypeError or a silently wrong array. The fixture is a hand-written 1D file
- * whose data decode by hand (ASDF rules, McDonald & Wilks 1988 [from memory]) to
- * 1 2 3 3 2 1 0 -1 -2 -3 at X = 10.0 ... 1.0.
+ * what is wrong, never a TypeError or a silently wrong array. The fixture is TINY_1D (helpers.ts).
  */
 import { describe, expect, it } from 'vitest';
 import { parseJcamp, writeJcamp2D } from '../../../src/core/jcamp';
 import { makeAxis } from '../../../src/core/spectrum/axis';
 import { make2D } from '../../../src/core/spectrum/spectrum';
-import { jcampErrorOf } from './helpers';
+import { jcampErrorOf, TINY_1D } from './helpers';
 
-const GOOD = [
-  '##TITLE= tiny', //                       1
-  '##JCAMP-DX= 5.01', //                    2
-  '##DATA TYPE= NMR SPECTRUM', //           3
-  '##ORIGIN= hand-written test fixture', // 4
-  '##OWNER= public domain', //              5
-  '##.OBSERVE FREQUENCY= 400.0', //         6
-  '##XUNITS= HZ', //                        7
-  '##YUNITS= ARBITRARY UNITS', //           8
-  '##XFACTOR= 1', //                        9
-  '##YFACTOR= 1', //                       10
-  '##FIRSTX= 10.0', //                     11
-  '##LASTX= 1.0', //                       12
-  '##NPOINTS= 10', //                      13
-  '##FIRSTY= 1', //                        14
-  '##XYDATA= (X++(Y..Y))', //              15
-  '10.0AJT%j', //                          16
-  '6.0BjW', //                             17
-  '1.0c', //                               18
-  '##END=', //                             19
-];
+const GOOD = TINY_1D;
 
 /** The fixture with line `n` (1-based) replaced, or removed when `text` is undefined. */
 function variant(n: number, text?: string): string {

@@ -45,3 +45,29 @@ export function headerValue(text: string, label: string): string | undefined {
   const m = re.exec(text);
   return m?.[1]?.replace(/\$\$.*$/, '').trim();
 }
+
+/**
+ * A hand-written 1D file whose data decode by hand (ASDF rules, McDonald & Wilks 1988 [from memory])
+ * to 1 2 3 3 2 1 0 -1 -2 -3 at X = 10.0 ... 1.0 Hz; one entry per line, line numbers in the comments.
+ */
+export const TINY_1D: readonly string[] = [
+  '##TITLE= tiny', //                       1
+  '##JCAMP-DX= 5.01', //                    2
+  '##DATA TYPE= NMR SPECTRUM', //           3
+  '##ORIGIN= hand-written test fixture', // 4
+  '##OWNER= public domain', //              5
+  '##.OBSERVE FREQUENCY= 400.0', //         6
+  '##XUNITS= HZ', //                        7
+  '##YUNITS= ARBITRARY UNITS', //           8
+  '##XFACTOR= 1', //                        9
+  '##YFACTOR= 1', //                       10
+  '##FIRSTX= 10.0', //                     11
+  '##LASTX= 1.0', //                       12
+  '##NPOINTS= 10', //                      13
+  '##FIRSTY= 1', //                        14
+  '##XYDATA= (X++(Y..Y))', //              15
+  '10.0AJT%j', //                          16
+  '6.0BjW', //                             17
+  '1.0c', //                               18
+  '##END=', //                             19
+];
