@@ -157,7 +157,8 @@ function windowAxis(p: DimensionProcessing, observeMhz: number, start: number, c
 /**
  * Simulate a phase-sensitive DQF-COSY (optionally only a window of the processed grid). Noise: see
  * statesNoise; with `snr`, the tallest |value| of the noise-free data returned (the window, when
- * one is given) over the spectral noise sigma equals snr.
+ * one is given) over the spectral noise sigma equals snr. With a window, the axes cover the window
+ * only, while `processing` still describes how the full grid was processed (size = full points).
  */
 export function simulateDqfCosy(system: SpinSystem, o: CosyOptions): SimulatedCosy {
   validateSpinSystem(system);

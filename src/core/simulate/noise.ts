@@ -12,6 +12,7 @@ export type NoiseSpec = { readonly seed: number; readonly snr: number } | { read
 export function spectralSigma(noise: NoiseSpec, peakAbs: number): number {
   if ('snr' in noise) {
     if (!(noise.snr > 0) || !Number.isFinite(noise.snr)) throw new RangeError(`noise.snr must be a positive number, got ${noise.snr}`);
+    if (!(peakAbs > 0)) throw new RangeError('noise.snr needs a signal, but the noise-free data are all zero here; give noise.sigma instead');
     return peakAbs / noise.snr;
   }
   if (!(noise.sigma >= 0) || !Number.isFinite(noise.sigma)) throw new RangeError(`noise.sigma must be >= 0, got ${noise.sigma}`);

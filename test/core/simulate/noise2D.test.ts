@@ -79,6 +79,13 @@ describe('simulateDqfCosy noise', () => {
     expect(ratio).toBeLessThan(1.05);
   });
 
+  it('refuses an snr for a window without signal instead of silently adding no noise', () => {
+    const empty = { row0: 200, rows: 16, col0: 0, cols: 64 };
+    expect(() => simulateDqfCosy(sys, { f1: p1, f2: p2, window: empty, noise: { seed: 1, snr: 10 } })).not.toThrow();
+    const zero: SpinSystem = { ...sys, couplings: [] };
+    expect(() => simulateDqfCosy(zero, { f1: p1, f2: p2, noise: { seed: 1, snr: 10 } })).toThrow(/noise.snr needs a signal/);
+  });
+
   it('is reproducible for a seed, and a window is an exact slice of the full spectrum (signal and exact noise)', () => {
     const noise = { seed: 12, sigma: 0.01 };
     const full = simulateDqfCosy(sys, { f1: p1, f2: p2, noise }).spectrum;
