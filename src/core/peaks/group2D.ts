@@ -1,5 +1,6 @@
 import { resolutionHz } from '../spectrum/axis';
 import type { Spectrum2D } from '../spectrum/spectrum';
+import { joinHalves } from './fragments';
 import type { Extremum } from './types';
 
 export interface LinkOptions {
@@ -21,6 +22,8 @@ const DEFAULT_LINK_POINTS = 2.5;
  * Groups extrema into multiplets by single linkage: two extrema are linked when they are within
  * the link distance in F2 and, independently, in F1 (a box, not a circle, because the two
  * dimensions have very different digital resolution). Groups are the connected components.
+ * Then the two F1 halves of one multiplet, further apart than the link distance, are rejoined
+ * (joinHalves in fragments.ts, up to twice the F1 link distance).
  * Returns groups of indices into `extrema`, each in ascending order.
  */
 export function linkExtrema(s: Spectrum2D, extrema: readonly Extremum[], opts: LinkOptions = {}): number[][] {
@@ -59,7 +62,8 @@ export function linkExtrema(s: Spectrum2D, extrema: readonly Extremum[], opts: L
     list.push(order[a] ?? 0);
     groups.set(root, list);
   }
-  return [...groups.values()].map((g) => g.sort((x, y) => x - y));
+  const linked = [...groups.values()].map((g) => g.sort((x, y) => x - y));
+  return joinHalves(extrema, linked, 2 * reach1);
 }
 
 function colOf(extrema: readonly Extremum[], i: number): number {

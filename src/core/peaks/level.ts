@@ -11,7 +11,7 @@ export interface PickingLevel {
 }
 
 const DEFAULT_THRESHOLD = 6;
-const DEFAULT_FLOOR = 0.002;
+const DEFAULT_FLOOR = 0.005;
 const DEFAULT_PROMINENCE = 5;
 
 function checkOption(name: string, value: number | undefined, allowZero: boolean): void {

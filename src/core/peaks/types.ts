@@ -75,9 +75,10 @@ export interface LevelOptions {
   /** Noise sigma in data units; estimated with estimateNoise when omitted. */
   noise?: number;
   /**
-   * Lowest level as a fraction of max |S| (default 0.002). It only binds when max |S| exceeds
-   * threshold / floor (3000 sigma at the defaults), i.e. for noise-free simulated data, where the
-   * sigma estimate is near zero and truncation ripples would otherwise be picked.
+   * Lowest level as a fraction of max |S| (default 0.005). It only binds when max |S| exceeds
+   * threshold / floor (1200 sigma at the defaults), e.g. for noise-free simulated data, where the
+   * sigma estimate is near zero and the F1 truncation ripples of the strongest peaks (about 0.3%
+   * of max |S| with a squared cosine bell over 256 F1 points, seen in a simulation) would be picked.
    */
   floor?: number;
   /**

@@ -25,7 +25,7 @@ describe('pickingLevel', () => {
   it('sets the level to threshold * sigma, or the floor fraction of max |S| when that is higher', () => {
     const d = new Float64Array([0, 1000, -3, 2]);
     expect(pickingLevel(d, { noise: 1 }, String).level).toBe(6);
-    expect(pickingLevel(d, { noise: 0.001 }, String).level).toBeCloseTo(2, 12); // 0.002 * 1000
+    expect(pickingLevel(d, { noise: 0.001 }, String).level).toBeCloseTo(5, 12); // 0.005 * 1000
     expect(pickingLevel(d, { noise: 0.001, floor: 0 }, String).level).toBeCloseTo(0.006, 12);
   });
 

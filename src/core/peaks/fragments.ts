@@ -1,0 +1,72 @@
+import type { Extremum } from './types';
+
+interface Summary {
+  readonly rowMin: number;
+  readonly rowMax: number;
+  readonly colMin: number;
+  readonly colMax: number;
+  readonly row: number;
+  /** The tallest extremum. */
+  readonly top: Extremum;
+}
+
+/**
+ * Rejoins the two halves of a multiplet split along F1. F1 lines are broad (short acquisition
+ * time), so in F1 a multiplet often shows only its two outer lobes of opposite sign; at low
+ * signal-to-noise the inner ones fall below the level and the outer ones can lie further apart
+ * than the link distance. Such a half has all its extrema within one F1 point (one "row" of lobes)
+ * - a whole cross peak is antiphase in F1 and always spans more - so two halves are joined when:
+ * both are one row tall, they overlap in F2, their rows are at most `reach1` points apart, and they
+ * have opposite signs at the same F2 position (the F1 antiphase of one multiplet). Two distinct
+ * cross peaks each keep both signs along F1 and are never joined by this rule.
+ */
+export function joinHalves(extrema: readonly Extremum[], groups: number[][], reach1: number): number[][] {
+  const sums = groups.map((g) => summarise(extrema, g));
+  const pairs: { a: number; b: number; gap: number }[] = [];
+  for (let a = 0; a < groups.length; a++) {
+    for (let b = a + 1; b < groups.length; b++) {
+      const sa = sums[a];
+      const sb = sums[b];
+      if (!sa || !sb || !isHalf(sa) || !isHalf(sb)) continue;
+      const gap = Math.abs(sa.row - sb.row);
+      if (gap > reach1 || sa.colMax < sb.colMin || sb.colMax < sa.colMin) continue;
+      if (signNear(extrema, groups[b] ?? [], sa.top.col) !== -sa.top.sign) continue;
+      pairs.push({ a, b, gap });
+    }
+  }
+  pairs.sort((x, y) => x.gap - y.gap || x.a - y.a || x.b - y.b);
+  const used = new Set<number>();
+  const out = groups.map((g) => [...g]);
+  for (const { a, b } of pairs) {
+    if (used.has(a) || used.has(b)) continue;
+    used.add(a);
+    used.add(b);
+    out[a] = [...(out[a] ?? []), ...(out[b] ?? [])].sort((x, y) => x - y);
+    out[b] = [];
+  }
+  return out.filter((g) => g.length > 0);
+}
+
+function isHalf(s: Summary): boolean {
+  return s.rowMax - s.rowMin < 1;
+}
+
+function summarise(extrema: readonly Extremum[], group: readonly number[]): Summary | undefined {
+  const list = group.map((i) => extrema[i]).filter((e): e is Extremum => e !== undefined);
+  const top = list.reduce<Extremum | undefined>((t, e) => (!t || Math.abs(e.height) > Math.abs(t.height) ? e : t), undefined);
+  if (!top) return undefined;
+  const rows = list.map((e) => e.row);
+  const cols = list.map((e) => e.col);
+  const row = rows.reduce((s, r) => s + r, 0) / rows.length;
+  return { rowMin: Math.min(...rows), rowMax: Math.max(...rows), colMin: Math.min(...cols), colMax: Math.max(...cols), row, top };
+}
+
+/** Sign of the group's extremum nearest in F2 to `col`. */
+function signNear(extrema: readonly Extremum[], group: readonly number[], col: number): number {
+  let best: Extremum | undefined;
+  for (const i of group) {
+    const e = extrema[i];
+    if (e && (!best || Math.abs(e.col - col) < Math.abs(best.col - col))) best = e;
+  }
+  return best?.sign ?? 0;
+}
