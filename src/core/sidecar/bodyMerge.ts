@@ -15,10 +15,8 @@ interface Group {
 
 const KEY_AT_START = /^\s*(?:-\s+)?([A-Za-z0-9_]+)\s*:(?:\s|$)/;
 
-function groups(body: readonly string[]): { groups: Map<string, Group>; post: string[]; contentIndent: number } {
+function groups(body: readonly string[], contentIndent: number): { groups: Map<string, Group>; post: string[] } {
   const out = new Map<string, Group>();
-  const first = body[0] ?? '';
-  const contentIndent = first.length - first.replace(/^\s*-\s+/, '').length;
   let pending: string[] = [];
   let current: Group | undefined;
   for (const line of body) {
@@ -33,10 +31,24 @@ function groups(body: readonly string[]): { groups: Map<string, Group>; post: st
       out.set(key, current);
     } else if (current !== undefined) {
       current.lines.push(...pending, line);
+    } else {
+      // A line before any field (e.g. a lone `-`): keep it; the caller's read-back check decides.
+      pending.push(line);
+      continue;
     }
     pending = [];
   }
-  return { groups: out, post: pending, contentIndent };
+  return { groups: out, post: pending };
+}
+
+/** Column of the item's fields: after `- ` on the dash line, or of the first field below a lone `-`. */
+function fieldIndent(body: readonly string[]): number {
+  const first = body[0] ?? '';
+  const dashIndent = indentOf(first);
+  const afterDash = /^\s*-\s+(?=\S)/.exec(first);
+  if (afterDash !== null && !isCommentLine(first.slice(afterDash[0].length))) return afterDash[0].length;
+  const next = body.slice(1).find((l) => !isBlankLine(l) && !isCommentLine(l));
+  return Math.max(dashIndent + 2, next === undefined ? 0 : indentOf(next));
 }
 
 /** The end-of-line comment of a line (with the space before it), or ''. */
@@ -50,26 +62,31 @@ function trailingComment(line: string): string {
 /** Puts `- ` in front of the first field line and removes it from the others. */
 function withLead(line: string, first: boolean, dashIndent: number, contentIndent: number): string {
   const rest = line.replace(/^\s*(?:-\s+)?/, '');
-  return first ? `${' '.repeat(dashIndent)}-${' '.repeat(contentIndent - dashIndent - 1)}${rest}` : `${' '.repeat(contentIndent)}${rest}`;
+  const afterDash = Math.max(1, contentIndent - dashIndent - 1);
+  return first ? `${' '.repeat(dashIndent)}-${' '.repeat(afterDash)}${rest}` : `${' '.repeat(contentIndent)}${rest}`;
 }
 
 export function mergeBody(body: readonly string[], dashIndent: number, oldFields: readonly FieldLine[],
   newFields: readonly FieldLine[]): string[] {
-  const { groups: old, post, contentIndent } = groups(body);
+  // `-` alone on its line, fields below it: keep that line and put no dash on any field.
+  const loneDash = /^\s*-\s*(#.*)?$/.test(body[0] ?? '');
+  const contentIndent = fieldIndent(body);
+  const { groups: old, post } = groups(loneDash ? body.slice(1) : body, contentIndent);
   const oldText = new Map(oldFields.map((f) => [f.key, f.text]));
-  const out: string[] = [];
+  const out: string[] = loneDash ? [body[0] ?? ''] : [];
   newFields.forEach((f, i) => {
+    const first = i === 0 && !loneDash;
     const g = old.get(f.key);
     if (g === undefined) {
-      out.push(withLead(f.text, i === 0, dashIndent, contentIndent));
+      out.push(withLead(f.text, first, dashIndent, contentIndent));
       return;
     }
     out.push(...g.pre);
     if (oldText.get(f.key) === f.text) {
       const [firstLine = '', ...rest] = g.lines;
-      out.push(withLeadIfMoved(firstLine, i === 0, dashIndent, contentIndent), ...rest);
+      out.push(withLeadIfMoved(firstLine, first, dashIndent, contentIndent), ...rest);
     } else {
-      out.push(withLead(f.text, i === 0, dashIndent, contentIndent) + trailingComment(g.lines[0] ?? ''));
+      out.push(withLead(f.text, first, dashIndent, contentIndent) + trailingComment(g.lines[0] ?? ''));
     }
   });
   const kept = new Set(newFields.map((f) => f.key));

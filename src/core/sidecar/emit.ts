@@ -20,17 +20,26 @@ export interface FieldLine {
  * A scalar as YAML text: plain when the plain form reads back as the same string, otherwise
  * double-quoted with JSON escapes (every JSON string is a valid YAML 1.2 double-quoted scalar,
  * YAML 1.2.2 §7.3.1). Reading back through the parser catches the plain forms that would change
- * type (`true`, `1.5`, `null`) or meaning (`a: b`, `# x`, `[x]`).
+ * type (`true`, `1.5`, `null`, `~`) or meaning (`a: b`, `# x`, `[x]`). The check is made under
+ * YAML 1.1 rules too, so that older readers do not turn `yes`, `on` or `1:20` into other types.
  */
 export function scalar(value: string, inFlow: boolean): string {
+  if (SIMPLE.test(value) && !KEYWORD.test(value)) return value;
   const safeChars = inFlow ? /^[^\s,[\]{}#&*!|>'"%@`][^,[\]{}\n\r\t]*$/ : /^[^\s[\]{}#&*!|>'"%@`,][^\n\r\t]*$/;
-  if (value === value.trim() && safeChars.test(value) && readsBack(value, inFlow)) return value;
+  if (value === value.trim() && safeChars.test(value) && readsBack(value, inFlow, '1.2') && readsBack(value, inFlow, '1.1')) {
+    return value;
+  }
   return JSON.stringify(value);
 }
 
-function readsBack(value: string, inFlow: boolean): boolean {
+/** Fast path: a letter then letters, digits, `.`, `_`, `-`, `+`, `(`, `)` is plain text in YAML 1.2 and 1.1 ... */
+const SIMPLE = /^[A-Za-z][A-Za-z0-9._+()-]*$/;
+/** ... unless it is a keyword of the YAML 1.2 core schema (§10.3.2) or a YAML 1.1 boolean/null. */
+const KEYWORD = /^(null|true|false|y|n|yes|no|on|off)$/i;
+
+function readsBack(value: string, inFlow: boolean, version: '1.1' | '1.2'): boolean {
   try {
-    const back: unknown = inFlow ? parse(`[${value}]`) : parse(`k: ${value}`);
+    const back: unknown = inFlow ? parse(`[${value}]`, { version }) : parse(`k: ${value}`, { version });
     if (inFlow) return Array.isArray(back) && back.length === 1 && back[0] === value;
     return typeof back === 'object' && back !== null && (back as Record<string, unknown>)['k'] === value;
   } catch {

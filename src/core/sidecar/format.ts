@@ -17,7 +17,7 @@
  */
 import { couplingFields, headLines, itemLines, listKeyLine, pickFields, type FieldLine } from './emit';
 import { mergeBody } from './bodyMerge';
-import { buildLayout, commentStart, isCommentLine, splitLines, type Layout, type ListLayout } from './layout';
+import { buildLayout, commentStart, isBlankLine, isCommentLine, splitLines, type Layout, type ListLayout } from './layout';
 import { compareCouplings, comparePicks, couplingKeyString, normalizeAtoms } from './order';
 import { isWritable, parseSidecar, parseYaml } from './parse';
 import { validateDocument } from './validate';
@@ -46,10 +46,17 @@ export function formatSidecar(sidecar: Sidecar, previousText?: string): string {
   const layout = buildLayout(previousText, doc, lines);
   const kept = layout === null ? null : assemble(s, normalizeSidecar(old), layout);
   if (kept !== null && readsBackAs(kept, s)) return kept;
-  // Layout not understood, or the result would not read back: canonical text, keeping every
-  // full-line comment at the top so that nothing people wrote is lost.
-  const comments = splitLines(previousText).lines.filter(isCommentLine);
+  // Layout not understood, or the result would not read back: canonical text, with every comment
+  // (full-line or end-of-line) moved to the top so that nothing people wrote is lost.
+  const comments = allComments(splitLines(previousText).lines);
   return (comments.length > 0 ? `${comments.join('\n')}\n` : '') + canonicalText(s);
+}
+
+function allComments(lines: readonly string[]): string[] {
+  return lines.flatMap((line) => {
+    const at = commentStart(line);
+    return at < 0 ? [] : [line.slice(at)];
+  });
 }
 
 function canonicalText(s: Sidecar): string {
@@ -112,11 +119,14 @@ function assembleList<T>(key: string, layout: ListLayout, oldItems: readonly T[]
   const out = [keyLine];
   const oldIndex = new Map(oldItems.map((item, k) => [idOf(item), k]));
   const dashIndent = layout.items[0]?.dashIndent ?? 2;
+  // New items are separated like the existing ones (canonical: one blank line).
+  const sep = layout.items[1]?.gap;
+  const newGap = sep !== undefined && sep.every(isBlankLine) ? sep : [''];
   newItems.forEach((item, i) => {
     const k = oldIndex.get(idOf(item));
     const block = k === undefined ? undefined : layout.items[k];
     const old = k === undefined ? undefined : oldItems[k];
-    const gap = i === 0 ? (layout.items[0]?.gap ?? []) : k !== undefined && k > 0 && block !== undefined ? block.gap : [''];
+    const gap = i === 0 ? (layout.items[0]?.gap ?? []) : k !== undefined && k > 0 && block !== undefined ? block.gap : newGap;
     out.push(...gap);
     if (block === undefined || old === undefined) {
       out.push(...itemLines(fields(item), dashIndent));

@@ -184,7 +184,10 @@ function checkCouplings(couplings: Located<Coupling>[], ids: ReadonlySet<string>
         `${c.value.atoms.join('/')} ${c.value.method} ${c.value.dimension} is already recorded by ${first}`);
     } else seen.set(key, c.path);
     for (const id of c.value.picks) {
-      if (!ids.has(id)) sink.node(c.node, 0, 'warning', 'unknown-pick', `${c.path}.picks`, `refers to pick "${id}", which is not in picks`);
+      if (!ids.has(id)) {
+        sink.node(c.node.get('picks', true) as Node | undefined, c.node.range?.[0] ?? 0, 'warning', 'unknown-pick',
+          `${c.path}.picks`, `refers to pick "${id}", which is not in picks`);
+      }
     }
     const prev = couplings[i - 1];
     if (prev !== undefined && compareCouplings(prev.value, c.value) > 0) {

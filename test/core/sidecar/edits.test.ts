@@ -118,6 +118,37 @@ describe('edit actions change only the lines of the item they touch (checked wit
   });
 });
 
+describe('edits on hand-written, non-canonical layouts keep that layout', () => {
+  const sha = 'a'.repeat(64);
+  const hand = `schema: couplet-sidecar/1\ndata:\n  file: a.jdx\n  sha256: ${sha}\npicks:   # by id\n`
+    + '- id: p-1\n  f2_ppm: 1.5   # hmm\n  label: "H-1"  # \'quoted # not a comment\'\n'
+    + '- id: p-3\n  f2_ppm: 3\n  label: [H-3]\n'
+    + '-\n  id: p-5\n  f2_ppm: 5\n  label: H-5\n'
+    + 'couplings: [] # none yet\n';
+
+  it('moves a pick written with a lone dash, touching only its position line', () => {
+    const out = apply(hand, movePick(hand, 'p-5', { f2Ppm: 5.25 }, NAME));
+    expect(changedOldLines(gitDiffHunks(hand, out))).toEqual([lineOf(hand, 'f2_ppm: 5')]);
+    expect(out).toContain('-\n  id: p-5\n  f2_ppm: 5.2500\n');
+  });
+
+  it('inserts into a compact list at column 0 without blank lines, in the same style', () => {
+    const { edits } = addPick(hand, { f2Ppm: 2, label: ['H-2'] }, NAME);
+    const out = apply(hand, edits);
+    expect(out).toContain("not a comment'\n- id: p-2.0000\n  f2_ppm: 2.0000\n  label: H-2\n- id: p-3\n");
+    expect(gitDiffHunks(hand, out).map((h) => [h.oldCount, h.newCount])).toEqual([[0, 3]]);
+  });
+
+  it('keeps end-of-line comments (also after quoted text holding #) and the key-line comment when a list stops being empty', () => {
+    let out = apply(hand, movePick(hand, 'p-1', { f2Ppm: 1.25 }, NAME));
+    expect(out).toContain('  f2_ppm: 1.2500   # hmm\n  label: "H-1"  # \'quoted # not a comment\'\n');
+    out = apply(out, setCoupling(out, { ...remeasured, atoms: ['H-1', 'H-3'], picks: ['p-1', 'p-3'] }, NAME));
+    expect(out).toContain('couplings: # none yet\n  - atoms: [H-1, H-3]\n');
+    out = apply(out, removeCoupling(out, { atoms: ['H-1', 'H-3'], method: 'fit', dimension: 'F2' }, NAME));
+    expect(out).toContain('couplings: [] # none yet\n');
+  });
+});
+
 describe('two people editing the same base merge with `git merge-file` without conflict', () => {
   it('merges two picks added at different sorted positions', () => {
     const ours = applyEdits(canonical, addPick(canonical, { f2Ppm: 3.1, f1Ppm: 1.9, label: ['H-6', 'H-7'] }, NAME).edits);

@@ -51,7 +51,8 @@ describe('formatSidecar: canonical form', () => {
   });
 
   it('quotes text only where a plain scalar would read back differently (YAML 1.2.2 §7.3.3 plain scalars, §10.3.2 core schema tags)', () => {
-    const awkward = ['true', '1.5', 'null', 'a: b', '# x', 'x, y', ' lead', 'two\nlines', '[H-3]', '-', "it's", 'é-α', '~'];
+    const awkward = ['true', '1.5', 'null', 'a: b', '# x', 'x, y', ' lead', 'two\nlines', '[H-3]', '-', "it's", 'é-α', '~',
+      'NULL', 'Yes', 'off', '1:20', '.inf', '0x1A', '1e3'];
     const s = newSidecar('a.jdx', SHA_ABC);
     awkward.forEach((t, i) => s.picks.push({ id: `p-${i + 1}`, f2Ppm: 1, label: [t, 'H-1'], note: t }));
     const text = formatSidecar(s);
@@ -63,6 +64,9 @@ describe('formatSidecar: canonical form', () => {
     expect(raw.picks.map((p) => p.note)).toEqual(awkward);
     expect(text).toContain("note: it's\n"); // plain where safe
     expect(text).toContain('note: "true"\n');
+    // YAML 1.1 readers take yes/off as booleans and 1:20 as a sexagesimal number (YAML 1.1 bool and int types).
+    expect(text).toContain('note: "Yes"\n');
+    expect(text).toContain('note: "1:20"\n');
   });
 });
 
@@ -99,11 +103,11 @@ describe('formatSidecar with the previous text: people\'s comments survive', () 
     expect(out).toContain('j_hz: 10.25   # axial-axial\r\n');
   });
 
-  it('falls back to the canonical layout for a layout it does not understand, keeping comment lines at the top', () => {
+  it('falls back to the canonical layout for a layout it does not understand, moving all comments to the top', () => {
     const flow = `# note on top\nschema: couplet-sidecar/1\ndata: {file: a.jdx, sha256: ${SHA_ABC}}\n`
       + 'picks: [{id: p-1, f2_ppm: 1, label: H-1}]  # flow style\n# between\ncouplings: []\n';
     const out = formatSidecar(read(flow), flow);
-    expect(out.startsWith('# note on top\n# between\nschema: couplet-sidecar/1\n')).toBe(true);
+    expect(out.startsWith('# note on top\n# flow style\n# between\nschema: couplet-sidecar/1\n')).toBe(true);
     expect(out).toContain('  - id: p-1\n    f2_ppm: 1.0000\n');
   });
 

@@ -126,7 +126,7 @@ describe('parseSidecar: problems become diagnostics with line and field', () => 
   it('warns (still writable) about couplings citing unknown picks, and notes unsorted lists', () => {
     const text = replaceLine(canonical, 'picks: [p-10.0100-7.2600]', 'picks: [p-10.0100-7.2700]');
     const { diagnostics } = parseSidecar(text, NAME);
-    expect(diagnostics).toMatchObject([{ code: 'unknown-pick', severity: 'warning', field: 'couplings[0].picks' }]);
+    expect(diagnostics).toMatchObject([{ code: 'unknown-pick', severity: 'warning', field: 'couplings[0].picks', line: lineOf(text, 'picks: [p-10.0100-7.2700]') }]);
     expect(isWritable(diagnostics)).toBe(true);
     const unsorted = replaceLine(canonical, 'id: p-2.6100-2.3400', 'id: p-9.6100-2.3400');
     expect(parseSidecar(unsorted, NAME).diagnostics).toMatchObject([{ code: 'unsorted', severity: 'info', field: 'picks[3]' }]);
