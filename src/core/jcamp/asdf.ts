@@ -123,11 +123,7 @@ export function decodeAsdf(src: string, start: number, end: number, firstLine: n
   let lastKind = NONE; // kind of the last token, for DUP and the Y check
   let lastDiff = 0;
   let lineNo = firstLine - 1;
-  const store = (v: number): void => {
-    if (count >= expected) throw new JcampError(file, lineNo, `more ordinates than the ${expected} points declared (NPOINTS/VAR_DIM)`);
-    values[count++] = v;
-    last = v;
-  };
+  const tooMany = (): JcampError => new JcampError(file, lineNo, `more ordinates than the ${expected} points declared (NPOINTS/VAR_DIM)`);
   for (let pos = start; pos < end; ) {
     lineNo++;
     const nl = src.indexOf('\n', pos);
@@ -167,20 +163,32 @@ export function decodeAsdf(src: string, start: number, end: number, firstLine: n
         v = readAffn(src, p, lineEnd);
         if (Number.isNaN(v)) throw new JcampError(file, lineNo, `malformed number at ${describe(src, p)}`);
       } else {
+        // Pseudo-digit then plain digits: the common case, read inline without the decimal path.
         const d = DIGIT[c] ?? 0;
-        const m = readMagnitude(src, p + 1, lineEnd, Math.abs(d));
+        let m = d < 0 ? -d : d;
+        let q = p + 1;
+        let cq = q < lineEnd ? src.charCodeAt(q) : 0;
+        while (cq >= 48 && cq <= 57) {
+          m = m * 10 + (cq - 48);
+          cq = ++q < lineEnd ? src.charCodeAt(q) : 0;
+        }
+        if (cq === 46) m = readMagnitude(src, p + 1, lineEnd, d < 0 ? -d : d);
+        else numEnd = q;
         v = d < 0 ? -m : m;
       }
       p = numEnd;
       if (kind === DUP) {
         if (lastKind === NONE || lastKind === DUP) throw new JcampError(file, lineNo, 'DUP count with no value to repeat');
-        for (let k = 1; k < v; k++) store(lastKind === DIF ? last + lastDiff : last);
+        const step = lastKind === DIF ? lastDiff : 0;
+        if (count + v - 1 > expected) throw tooMany();
+        for (let k = 1; k < v; k++) values[count++] = last += step;
         lastKind = lastKind === DIF ? DIF : SQZ;
       } else if (kind === DIF) {
         if (Number.isNaN(last)) throw new JcampError(file, lineNo, 'DIF value with no preceding ordinate');
         if (first && checkPending) throw new JcampError(file, lineNo, 'expected the DIF Y-check value (an absolute ordinate) at the start of the line');
         lastDiff = v;
-        store(last + v);
+        if (count >= expected) throw tooMany();
+        values[count++] = last += v;
         lastKind = DIF;
       } else if (first && checkPending) {
         if (Math.abs(v - last) > 1e-9 * Math.max(1, Math.abs(last))) {
@@ -188,7 +196,8 @@ export function decodeAsdf(src: string, start: number, end: number, firstLine: n
         }
         lastKind = SQZ; // the check value stands for the stored point; a DUP after it repeats it
       } else {
-        store(v);
+        if (count >= expected) throw tooMany();
+        values[count++] = last = v;
         lastKind = SQZ;
       }
       first = false;

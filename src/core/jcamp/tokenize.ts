@@ -43,7 +43,7 @@ interface MutableRecord {
 
 /** Reject what cannot be a JCAMP-DX text before scanning it line by line. */
 function checkText(text: string, file: string): void {
-  if (text.trim() === '') throw new JcampError(file, 1, 'empty file: no ##TITLE= record');
+  if (!/\S/.test(text)) throw new JcampError(file, 1, 'empty file: no ##TITLE= record');
   const nul = text.indexOf('\0');
   if (nul >= 0) {
     throw new JcampError(file, lineAt(text, nul), 'binary data (a NUL byte): not a JCAMP-DX text file');
