@@ -6,23 +6,25 @@
  * Every action throws (with the file name and line) when the text must not be overwritten.
  */
 import { toFixedDecimal } from './decimal';
-import { formatSidecar } from './format';
+import { formatOver } from './format';
 import { lineDiffEdits } from './lineDiff';
 import { couplingKeyString, normalizeAtoms } from './order';
-import { isWritable, parseSidecar } from './parse';
+import { isWritable, readSidecarText, type ParsedText } from './parse';
 import type { Coupling, CouplingKey, Pick, Sidecar, TextEdit } from './types';
 
-function current(text: string, fileName: string): Sidecar {
-  const { sidecar, diagnostics } = parseSidecar(text, fileName);
+function current(text: string, fileName: string): { sidecar: Sidecar; parsed: ParsedText } {
+  const parsed = readSidecarText(text, fileName);
+  const { sidecar, diagnostics } = parsed.result;
   const first = diagnostics.find((d) => d.severity === 'error');
   if (sidecar === null || !isWritable(diagnostics)) {
     throw new Error(`not editing ${fileName}: ${first?.message ?? 'it cannot be read as a sidecar'}`);
   }
-  return sidecar;
+  return { sidecar, parsed };
 }
 
 function edit(text: string, fileName: string, change: (s: Sidecar) => Sidecar): TextEdit[] {
-  return lineDiffEdits(text, formatSidecar(change(current(text, fileName)), text));
+  const { sidecar, parsed } = current(text, fileName);
+  return lineDiffEdits(text, formatOver(change(sidecar), text, parsed));
 }
 
 function pickIndex(s: Sidecar, id: string, fileName: string): number {
@@ -51,11 +53,11 @@ export function pickIdFor(s: Sidecar, f2Ppm: number, f1Ppm?: number): string {
 export type NewPick = Omit<Pick, 'id'> & { id?: string };
 
 export function addPick(text: string, pick: NewPick, fileName = 'sidecar'): { edits: TextEdit[]; id: string } {
-  const s = current(text, fileName);
+  const { sidecar: s, parsed } = current(text, fileName);
   const id = pick.id ?? pickIdFor(s, pick.f2Ppm, pick.f1Ppm);
   if (s.picks.some((p) => p.id === id)) throw new Error(`${fileName}: a pick with id "${id}" already exists`);
   const next = { ...s, picks: [...s.picks, { ...pick, id }] };
-  return { edits: lineDiffEdits(text, formatSidecar(next, text)), id };
+  return { edits: lineDiffEdits(text, formatOver(next, text, parsed)), id };
 }
 
 export function movePick(text: string, id: string, to: { f2Ppm: number; f1Ppm?: number }, fileName = 'sidecar'): TextEdit[] {

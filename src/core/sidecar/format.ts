@@ -19,7 +19,7 @@ import { couplingFields, headLines, itemLines, listKeyLine, pickFields, type Fie
 import { mergeBody } from './bodyMerge';
 import { buildLayout, commentStart, isBlankLine, isCommentLine, splitLines, type Layout, type ListLayout } from './layout';
 import { compareCouplings, comparePicks, couplingKeyString, normalizeAtoms } from './order';
-import { isWritable, parseSidecar, parseYaml } from './parse';
+import { isWritable, parseYaml, readSidecarText, type ParsedText } from './parse';
 import { validateDocument } from './validate';
 import { SCHEMA_ID, type Pick, type Sidecar } from './types';
 
@@ -36,13 +36,18 @@ export function normalizeSidecar(s: Sidecar): Sidecar {
 export function formatSidecar(sidecar: Sidecar, previousText?: string): string {
   const s = normalizeSidecar(sidecar);
   if (previousText === undefined) return canonicalText(s);
-  const checked = parseSidecar(previousText, 'previous text');
-  const old = checked.sidecar;
-  if (old === null || !isWritable(checked.diagnostics)) {
-    const first = checked.diagnostics.find((d) => d.severity === 'error');
+  return formatOver(s, previousText, readSidecarText(previousText, 'previous text'));
+}
+
+/** formatSidecar over a previous text that the caller has already parsed. */
+export function formatOver(sidecar: Sidecar, previousText: string, parsed: ParsedText): string {
+  const s = normalizeSidecar(sidecar);
+  const old = parsed.result.sidecar;
+  const { doc, lines } = parsed;
+  if (old === null || doc === null || lines === null || !isWritable(parsed.result.diagnostics)) {
+    const first = parsed.result.diagnostics.find((d) => d.severity === 'error');
     throw new Error(`cannot rewrite over a sidecar with errors: ${first?.message ?? 'unreadable'}`);
   }
-  const { doc, lines } = parseYaml(previousText, 'previous text');
   const layout = buildLayout(previousText, doc, lines);
   const kept = layout === null ? null : assemble(s, normalizeSidecar(old), layout);
   if (kept !== null && readsBackAs(kept, s)) return kept;

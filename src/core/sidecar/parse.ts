@@ -27,13 +27,24 @@ export interface ParseResult {
 const CONFLICT_MARKER = /^(<{7}|\|{7}|={7}|>{7})(?:[ \t]|$)/;
 
 export function parseSidecar(text: string, fileName: string, options: ParseOptions = {}): ParseResult {
+  return readSidecarText(text, fileName, options).result;
+}
+
+/** The parse result together with the YAML document it came from (for the layout-keeping writer). */
+export interface ParsedText {
+  result: ParseResult;
+  doc: Document | null;
+  lines: LineCounter | null;
+}
+
+export function readSidecarText(text: string, fileName: string, options: ParseOptions = {}): ParsedText {
   const markers = conflictMarkers(text, fileName);
-  if (markers.length > 0) return { sidecar: null, diagnostics: markers, conflicted: true };
-  const { doc, sink } = parseYaml(text, fileName);
-  if (doc.errors.length > 0) return { sidecar: null, diagnostics: sink.list, conflicted: false };
+  if (markers.length > 0) return { result: { sidecar: null, diagnostics: markers, conflicted: true }, doc: null, lines: null };
+  const { doc, sink, lines } = parseYaml(text, fileName);
+  if (doc.errors.length > 0) return { result: { sidecar: null, diagnostics: sink.list, conflicted: false }, doc, lines };
   const sidecar = validateDocument(doc, sink);
   if (sidecar !== null && options.dataSha256 !== undefined) checkHash(sidecar, options.dataSha256, doc, sink);
-  return { sidecar, diagnostics: sink.list, conflicted: false };
+  return { result: { sidecar, diagnostics: sink.list, conflicted: false }, doc, lines };
 }
 
 /** False when writing over the file could lose data or hide a problem: any error diagnostic. */

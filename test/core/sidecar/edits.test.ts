@@ -118,6 +118,25 @@ describe('edit actions change only the lines of the item they touch (checked wit
   });
 });
 
+describe('every action keeps the comments people wrote (all but those of an item it removes)', () => {
+  const actions: [string, (t: string) => TextEdit[], string[]][] = [
+    ['addPick', (t) => addPick(t, { f2Ppm: 6, f1Ppm: 1, label: ['H-9'] }, NAME).edits, []],
+    ['movePick', (t) => movePick(t, 'p-1.2500-1.2500', { f2Ppm: 1.26, f1Ppm: 1.26 }, NAME), []],
+    ['relabelPick', (t) => relabelPick(t, 'p-5.0200-3.9800', ['H-7'], NAME), []],
+    ['removePick', (t) => removePick(t, 'p-1.2500-1.2500', NAME), ['# diagonal reference for the methyl']],
+    ['setCoupling', (t) => setCoupling(t, { ...remeasured, jSdHz: 0.2, flags: ['second-order'] }, NAME), []],
+    ['removeCoupling', (t) => removeCoupling(t, { atoms: ['H-3', 'H-4a'], method: 'fit', dimension: 'F2' }, NAME),
+      ['# the key coupling for the ring conformation', '# axial-axial']],
+    ['setDataHash', (t) => setDataHash(t, '0'.repeat(64), NAME), []],
+  ];
+  for (const [name, action, goes] of actions) {
+    it(`${name}`, () => {
+      const out = apply(commented, action(commented));
+      expect(comments(out)).toEqual(comments(commented).filter((c) => !goes.includes(c)));
+    });
+  }
+});
+
 describe('edits on hand-written, non-canonical layouts keep that layout', () => {
   const sha = 'a'.repeat(64);
   const hand = `schema: couplet-sidecar/1\ndata:\n  file: a.jdx\n  sha256: ${sha}\npicks:   # by id\n`
@@ -169,6 +188,14 @@ describe('two people editing the same base merge with `git merge-file` without c
     const s = read(merged.text);
     expect(s.picks).toHaveLength(7);
     expect(s.couplings[1]?.jHz).toBe(10.25);
+  });
+
+  it('merges a move and a relabel of the same pick (different lines of one item)', () => {
+    const ours = applyEdits(canonical, movePick(canonical, 'p-4.1200-2.3400', { f2Ppm: 4.13, f1Ppm: 2.34 }, NAME));
+    const theirs = applyEdits(canonical, relabelPick(canonical, 'p-4.1200-2.3400', ['H-3', 'H-4b'], NAME));
+    const merged = gitMergeFile(ours, canonical, theirs);
+    expect(merged.conflicts).toBe(0);
+    expect(read(merged.text).picks.find((p) => p.id === 'p-4.1200-2.3400')).toMatchObject({ f2Ppm: 4.13, label: ['H-3', 'H-4b'] });
   });
 
   it('merges two couplings added for different atom pairs', () => {
