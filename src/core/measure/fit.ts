@@ -1,0 +1,211 @@
+import type { Matrix } from 'ml-matrix';
+import { pseudoInverse } from 'ml-matrix';
+import { applyCorrelation, dot, jtRj, type NoiseCorrelation } from './correlation';
+import { covarianceSandwich, levenbergMarquardt, type ResidualFn } from './lm';
+import { apparentFwhm, makeTheta, paramCount, passiveIndex, pattern, type ModelSpec } from './model';
+import type { LineModel } from './lineshape';
+import type { TraceBlock } from './traces';
+
+/** What the fit needs besides the model: the traces, the noise level and its correlation. */
+export interface FitContext {
+  block: TraceBlock;
+  sigma: number;
+  rhoAlong: NoiseCorrelation;
+  rhoAcross: NoiseCorrelation;
+}
+
+export interface FitResult {
+  spec: ModelSpec;
+  theta: Float64Array;
+  rss: number;
+  /** Jacobian of the projected residual in the internal parameters. */
+  jac: Matrix;
+  shape: Float64Array;
+  amplitudes: number[];
+  /** Fitted values, traces one after another. */
+  fitted: Float64Array;
+}
+
+/**
+ * Variable projection (Golub & Pereyra, SIAM J. Numer. Anal. 10 (1973) 413 [mem]): the row
+ * amplitudes are linear, so for a given pattern f each one is the least-squares value
+ * a_t = <y_t, f> / <f, f>, and only the pattern parameters are iterated. The returned residual is
+ * y - a f for all traces; its Jacobian (by differences) is the projected one.
+ */
+function project(ctx: FitContext, spec: ModelSpec, theta: ArrayLike<number>) {
+  const m = ctx.block.freqs.length;
+  const shape = new Float64Array(m);
+  pattern(spec, theta, ctx.block.freqs, shape);
+  const ff = dot(shape, shape);
+  const amplitudes = ctx.block.data.map((y) => (ff > 0 ? dot(y, shape) / ff : 0));
+  const fitted = new Float64Array(m * ctx.block.data.length);
+  const residual = new Float64Array(fitted.length);
+  ctx.block.data.forEach((y, t) => {
+    const a = amplitudes[t] ?? 0;
+    for (let i = 0; i < m; i++) {
+      const f = a * (shape[i] ?? 0);
+      fitted[t * m + i] = f;
+      residual[t * m + i] = (y[i] ?? 0) - f;
+    }
+  });
+  return { shape, amplitudes, fitted, residual };
+}
+
+function scalesFor(spec: ModelSpec): Float64Array {
+  const s = new Float64Array(paramCount(spec)).fill(1);
+  s[2] = spec.line.kind === 'pseudoVoigt' ? 0.1 : 1;
+  s[3] = 0.01;
+  return s;
+}
+
+export function fitFrom(ctx: FitContext, spec: ModelSpec, start: ArrayLike<number>, maxIterations = 100): FitResult {
+  const fn: ResidualFn = (th) => project(ctx, spec, th).residual;
+  const lm = levenbergMarquardt(fn, start, { scales: scalesFor(spec), maxIterations, tolerance: 1e-10 });
+  const p = project(ctx, spec, lm.params);
+  return { spec, theta: lm.params, rss: lm.rss, jac: lm.jacobian, ...p };
+}
+
+/** Multi-start: a short run from every start, then the best one run to convergence. */
+function bestOf(ctx: FitContext, spec: ModelSpec, starts: Float64Array[]): FitResult {
+  let best: FitResult | undefined;
+  for (const s of starts) {
+    const r = fitFrom(ctx, spec, s, 10);
+    if (!best || r.rss < best.rss) best = r;
+  }
+  if (!best) throw new RangeError('no starting values');
+  return fitFrom(ctx, spec, best.theta);
+}
+
+/** Residual sum of squares of the projected problem (no Jacobian): cheap enough for grid searches. */
+function rssAt(ctx: FitContext, spec: ModelSpec, theta: ArrayLike<number>): number {
+  const r = project(ctx, spec, theta).residual;
+  return dot(r, r);
+}
+
+/** Candidate couplings for a grid search, Hz: geometric from 0.15 w to the window half-width. */
+function couplingGrid(ctx: FitContext, w: number): number[] {
+  const f = ctx.block.freqs;
+  const span = Math.abs((f[f.length - 1] ?? 0) - (f[0] ?? 0)) / 2;
+  const lo = 0.15 * w;
+  const out: number[] = [];
+  for (let v = lo; v <= Math.max(span, 2 * lo); v *= 1.35) out.push(v);
+  return out;
+}
+
+/**
+ * Starting values by a grid search over J (and a new passive coupling), the other parameters held:
+ * the `keep` grid points of lowest residual. Grid points cost one pattern evaluation each, far less
+ * than a local fit, and they keep the fit out of the local minima that swap active and passive
+ * splittings or lock onto an outer pair of lines.
+ */
+function gridStarts(ctx: FitContext, spec: ModelSpec, base: Float64Array, w: number, widths: number[], keep = 2): Float64Array[] {
+  const grid = couplingGrid(ctx, w);
+  const jp = spec.passives > 0 ? passiveIndex(spec, spec.passives - 1) : -1;
+  const scored: { rss: number; th: Float64Array }[] = [];
+  for (const width of widths) {
+    for (const j of grid) {
+      for (const p of jp >= 0 ? grid : [0]) {
+        const th = Float64Array.from(base);
+        th[1] = j;
+        th[2] = width;
+        if (jp >= 0) th[jp] = p;
+        scored.push({ rss: rssAt(ctx, spec, th), th });
+      }
+    }
+  }
+  scored.sort((a, b) => a.rss - b.rss);
+  return scored.slice(0, keep).map((x) => x.th);
+}
+
+/** Width parameters to try before any fit: natural widths (processed line) or log FWHM (pseudo-Voigt). */
+function firstWidths(spec: ModelSpec, jApp: number): number[] {
+  return spec.line.kind === 'pseudoVoigt' ? [0.5, 0.8, 1.3].map((f) => Math.log(f * jApp)) : [0.3, 1, 3, 8];
+}
+
+/**
+ * χ²(1) quantile at p = 0.001 (10.83, tables): the bar for adding a passive coupling. Stricter than
+ * the usual 0.01 because the new coupling is found by a search over many starting points (a
+ * look-elsewhere effect the plain χ²(1) ignores), and a spurious passive coupling can swap roles
+ * with the active one.
+ */
+const CHI2_1_P001 = 10.83;
+
+/** Parameters of the model with one more passive coupling: the old ones, then J and the new Jp given. */
+function startWithPassive(fit: FitResult, next: ModelSpec, j: number, jp: number): Float64Array {
+  const th = new Float64Array(paramCount(next));
+  th.set(fit.theta.subarray(0, passiveIndex(fit.spec, 0)));
+  th[1] = j;
+  for (let i = 0; i < fit.spec.passives; i++) th[passiveIndex(next, i)] = fit.theta[passiveIndex(fit.spec, i)] ?? 0;
+  th[passiveIndex(next, next.passives - 1)] = jp;
+  return th;
+}
+
+export interface Selection {
+  fit: FitResult;
+  notes: string[];
+}
+
+/**
+ * Fits 0..maxPassive passive couplings and keeps adding one while the drop in the residual sum of
+ * squares is significant at p < 0.01: for nested least-squares models the drop is the squared
+ * projection of the noise on the change d of the fitted values, so under the smaller model
+ * ΔRSS / (σ² dᵀRd / dᵀd) follows χ²(1) even with correlated noise R (likelihood-ratio test).
+ */
+export function selectModel(ctx: FitContext, line: LineModel, maxPassive: number, centre: number, jApp: number): Selection {
+  let spec: ModelSpec = { line, passives: 0 };
+  const w0 = Math.max(jApp, 1e-3);
+  let fit = bestOf(ctx, spec, gridStarts(ctx, spec, makeTheta(spec, centre, jApp, 1, []), w0, firstWidths(spec, jApp)));
+  for (let k = 1; k <= maxPassive; k++) {
+    const next: ModelSpec = { line, passives: k };
+    const w = apparentFwhm(fit.spec, fit.theta);
+    const base = startWithPassive(fit, next, fit.theta[1] ?? 0, 0);
+    // Widths too: a smaller model may have bent the width to mimic the missing splitting.
+    const widths = [fit.theta[2] ?? 0, firstWidths(next, w)[1] ?? 0];
+    const cand = bestOf(ctx, next, gridStarts(ctx, next, base, w, widths));
+    const d = Float64Array.from(cand.fitted, (v, i) => v - (fit.fitted[i] ?? 0));
+    const dd = dot(d, d);
+    const m = ctx.block.freqs.length;
+    const varFactor = dd > 0 ? dot(d, applyCorrelation(d, ctx.block.positions, m, ctx.rhoAlong, ctx.rhoAcross)) / dd : 1;
+    // When even the larger model leaves more than the noise, judge against that residual (an F-test).
+    const scale = Math.max(1, uncertainty(ctx, cand).chi2Reduced);
+    const stat = (fit.rss - cand.rss) / (ctx.sigma ** 2 * varFactor * scale);
+    if (!(stat > CHI2_1_P001)) break;
+    spec = next;
+    fit = cand;
+  }
+  const notes = [
+    `Passive couplings chosen by a likelihood-ratio test at p < 0.001 (chi-squared, 1 degree of freedom, ` +
+      `correlated noise accounted for, scaled by the residual when it exceeds the noise), 0 to ${maxPassive} tried; kept ${spec.passives}.`,
+  ];
+  return { fit, notes };
+}
+
+export interface Uncertainty {
+  /** Covariance of the internal parameters, including the √χ²_red inflation when χ²_red > 1. */
+  cov: Matrix;
+  chi2Reduced: number;
+  inflated: boolean;
+}
+
+/**
+ * Covariance by the sandwich formula with the correlated noise Σ = σ² R (R separable: along the
+ * traces times across them), and χ²_red = RSS / E[RSS], where under that noise
+ * E[RSS] = σ² tr((I - H) R) = σ² (M - tr(P_A R) - tr((JᵀJ)⁻¹ JᵀRJ)), P_A the projection on the
+ * row amplitudes. A χ²_red above 1 (misfit beyond the noise) inflates the covariance by χ²_red
+ * (Birge ratio; common practice).
+ */
+export function uncertainty(ctx: FitContext, fit: FitResult): Uncertainty {
+  const m = ctx.block.freqs.length;
+  const nTr = ctx.block.data.length;
+  const jrj = jtRj(fit.jac, ctx.block.positions, m, ctx.rhoAlong, ctx.rhoAcross);
+  const cov = covarianceSandwich(fit.jac, jrj.clone().mul(ctx.sigma ** 2));
+  const jtjInv = pseudoInverse(fit.jac.transpose().mmul(fit.jac));
+  const trH = jtjInv.mmul(jrj).trace();
+  const ff = dot(fit.shape, fit.shape);
+  const fRf = dot(fit.shape, applyCorrelation(fit.shape, [0], m, ctx.rhoAlong, Float64Array.of(1)));
+  const trPa = ff > 0 ? nTr * (fRf / ff) : 0;
+  const expected = ctx.sigma ** 2 * Math.max(1e-9, m * nTr - trPa - trH);
+  const chi2Reduced = fit.rss / expected;
+  const inflated = chi2Reduced > 1;
+  return { cov: inflated ? cov.mul(chi2Reduced) : cov, chi2Reduced, inflated };
+}

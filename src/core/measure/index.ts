@@ -1,0 +1,137 @@
+import { resolutionHz, hzToPpm } from '../spectrum/axis';
+import type { Spectrum2D } from '../spectrum/spectrum';
+import { correlationFromProcessing, estimateCorrelation, type NoiseCorrelation } from './correlation';
+import { selectModel, uncertainty, type FitContext, type FitResult } from './fit';
+import { qualityFlags } from './flags';
+import { processedLine, pseudoVoigtLine } from './lineshape';
+import { apparentFwhm, lineWidth, mixFraction, passiveIndex } from './model';
+import { naiveSplitting } from './naive';
+import { noiseOutsidePeak } from './noise';
+import { extractTraces, ppmOf, sampleTraces, type TraceBlock } from './traces';
+import { MeasureError, type CrossPeakInput, type Measurement, type MeasureOptions, type TraceFit } from './types';
+
+export { MeasureError } from './types';
+export type { QualityFlag, TraceFit, Measurement, MeasureOptions, CrossPeakInput } from './types';
+
+function checkOptions(o: MeasureOptions): void {
+  if (o.maxPassive !== undefined && !(Number.isInteger(o.maxPassive) && o.maxPassive >= 0 && o.maxPassive <= 4)) {
+    throw new RangeError(`maxPassive must be an integer 0..4, got ${o.maxPassive}`);
+  }
+  if (o.rows !== undefined && !(Number.isInteger(o.rows) && o.rows >= 1)) throw new RangeError(`rows must be a positive integer, got ${o.rows}`);
+  if (o.noise !== undefined && !(o.noise > 0 && Number.isFinite(o.noise))) throw new RangeError(`noise must be positive, got ${o.noise}`);
+}
+
+/** Noise correlation along and across the traces: from the processing when known, else measured. */
+function correlations(s: Spectrum2D, block: TraceBlock): { along: NoiseCorrelation; across: NoiseCorrelation; measured: boolean } {
+  const m = block.freqs.length;
+  const span = Math.max(1, (block.positions.at(-1) ?? 0) - (block.positions[0] ?? 0));
+  const other = block.dimension === 'F2' ? 'F1' : 'F2';
+  const along = block.alongProcessing
+    ? correlationFromProcessing(block.alongProcessing, m)
+    : estimateCorrelation(sampleTraces(s, block.dimension, 64), Math.min(32, m));
+  const across = block.acrossProcessing
+    ? correlationFromProcessing(block.acrossProcessing, span)
+    : estimateCorrelation(sampleTraces(s, other, 64), Math.min(16, span), 32);
+  return { along, across, measured: !block.alongProcessing || !block.acrossProcessing };
+}
+
+function traceFits(block: TraceBlock, fitted: Float64Array): TraceFit[] {
+  const m = block.freqs.length;
+  return block.data.map((data, t) => {
+    const f = fitted.slice(t * m, (t + 1) * m);
+    return {
+      row: block.positions[t] ?? 0,
+      f1Ppm: ppmOf(block.across, block.positions[t] ?? 0),
+      fromPpm: ppmOf(block.along, block.from),
+      toPpm: ppmOf(block.along, block.to),
+      data: Float64Array.from(data),
+      fitted: f,
+      residual: Float64Array.from(data, (v, i) => v - (f[i] ?? 0)),
+    };
+  });
+}
+
+function sd(cov: { get(i: number, j: number): number }, i: number): number {
+  return Math.sqrt(Math.max(0, cov.get(i, i)));
+}
+
+/** Apparent FWHM and its σ from the width parameter's variance (numeric derivative). */
+function linewidthWithSd(fit: FitResult, varWidth: number): [number, number] {
+  const fw = apparentFwhm(fit.spec, fit.theta);
+  const h = 1e-4 * Math.max(1, Math.abs(fit.theta[2] ?? 0));
+  const up = Float64Array.from(fit.theta);
+  const dn = Float64Array.from(fit.theta);
+  up[2] = (up[2] ?? 0) + h;
+  dn[2] = (dn[2] ?? 0) - h;
+  const slope = (apparentFwhm(fit.spec, up) - apparentFwhm(fit.spec, dn)) / (2 * h);
+  return [fw, Math.abs(slope) * Math.sqrt(Math.max(0, varWidth))];
+}
+
+/**
+ * J of the active coupling at a DQF-COSY cross peak, from the traces through it along F2 (default)
+ * or F1. The 'fit' method models the multiplet (module fit.ts); 'naive' reads the antiphase
+ * extrema (kept for comparison). Throws MeasureError when there is nothing to measure.
+ */
+export function measureCrossPeak(s: Spectrum2D, peak: CrossPeakInput, opts: MeasureOptions = {}): Measurement {
+  checkOptions(opts);
+  const dimension = opts.dimension ?? 'F2';
+  const method = opts.method ?? 'fit';
+  const block = extractTraces(s, peak, dimension, opts.rows ?? 8);
+  const sigma = opts.noise ?? noiseOutsidePeak(s, block);
+  if (!(sigma > 0)) {
+    throw new MeasureError(`the noise level of '${s.title}' is zero or unmeasurable outside the cross peak; pass it explicitly`);
+  }
+  const rho = correlations(s, block);
+  const ctx: FitContext = { block, sigma, rhoAlong: rho.along, rhoAcross: rho.across };
+  const naive = naiveSplitting(block, sigma, rho.along, rho.across);
+  const line = block.alongProcessing ? processedLine(block.alongProcessing) : pseudoVoigtLine();
+  const notes: string[] = [];
+  if (!block.alongProcessing) {
+    notes.push(`The ${dimension} processing is not recorded in the file, so the line shape is an assumed Lorentz-Gauss mix ` +
+      'with a fitted mix fraction, and the noise correlation between points was measured on empty parts of the spectrum.');
+  }
+  const sel = selectModel(ctx, line, method === 'fit' ? opts.maxPassive ?? 2 : 0, naive.centreHz, naive.jHz);
+  const unc = uncertainty(ctx, sel.fit);
+  const fit = sel.fit;
+  const [linewidthHz, linewidthSdHz] = linewidthWithSd(fit, unc.cov.get(2, 2));
+  const mix = mixFraction(fit.spec, fit.theta);
+  const lineshape = line.kind === 'pseudoVoigt' ? `Lorentz-Gauss mix ${mix.toFixed(2)}` : line.description;
+  const hzPt = resolutionHz(block.along);
+  let jHz: number;
+  let jSdHz: number;
+  let centreHz: number;
+  const fitted = fit.fitted;
+  const chi2 = unc.chi2Reduced;
+  if (method === 'naive') {
+    jHz = naive.jHz;
+    jSdHz = naive.jSdHz;
+    centreHz = naive.centreHz;
+    notes.push('Naive method: the distance between the strongest positive and negative points of the summed traces ' +
+      '(parabolic interpolation); it overestimates J near and below the linewidth. The linewidth, chi-squared and the ' +
+      'fitted traces come from a model fit without passive couplings.');
+  } else {
+    jHz = Math.abs(fit.theta[1] ?? 0);
+    jSdHz = sd(unc.cov, 1);
+    centreHz = fit.theta[0] ?? 0;
+    notes.push(...sel.notes);
+    notes.push(`Natural linewidth ${lineWidth(fit.spec, fit.theta).toFixed(2)} Hz; uncertainty from the fit covariance with the ` +
+      'measured noise, correlation between points included (sandwich estimator)' + (unc.inflated ? `, scaled by sqrt(chi2_red) = ${Math.sqrt(chi2).toFixed(2)}.` : '.'));
+  }
+  const passiveHz = Array.from({ length: method === 'fit' ? fit.spec.passives : 0 }, (_, i) => Math.abs(fit.theta[passiveIndex(fit.spec, i)] ?? 0));
+  const passiveSdHz = passiveHz.map((_, i) => sd(unc.cov, passiveIndex(fit.spec, i)));
+  const q = qualityFlags({
+    jHz, jSdHz, linewidthHz, hzPerPoint: hzPt, dimension,
+    shiftDiffHz: (peak.f1Ppm - peak.f2Ppm) * s.f2.observeMhz,
+    chi2Reduced: chi2,
+    lineshapeAssumed: !block.alongProcessing,
+  });
+  notes.push(...q.notes);
+  let rss = 0;
+  block.data.forEach((y, t) => y.forEach((v, i) => (rss += (v - (fitted[t * y.length + i] ?? 0)) ** 2)));
+  return {
+    jHz, jSdHz, passiveHz, passiveSdHz, linewidthHz, linewidthSdHz, method, dimension, centreHz,
+    centrePpm: hzToPpm(block.along, centreHz), noise: sigma,
+    residualRms: Math.sqrt(rss / Math.max(1, fitted.length)), chi2Reduced: chi2,
+    flags: q.flags, notes, traces: traceFits(block, fitted), lineshape,
+  };
+}

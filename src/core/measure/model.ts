@@ -1,0 +1,87 @@
+import type { LineModel } from './lineshape';
+
+/**
+ * The F2 (or F1) pattern of one cross-peak multiplet: the 2^(1+p) lines at
+ * centre + s0 J/2 + sum_i s_i Jp_i/2 (s = ±1), each with the sign s0 of the active coupling
+ * (antiphase in J, in-phase in the passive couplings; first-order DQF-COSY cross peak), of one
+ * line shape, phase-rotated by phi: Re(e^{i phi} X).
+ *
+ * Parameter vector (internal, unbounded): [centre Hz, J Hz, width, phi rad, (mix), Jp_1..Jp_p].
+ * width: natural Lorentzian width w (Hz) for the processed line; log of the FWHM for the
+ * pseudo-Voigt line (keeps it positive). mix: logit of the Gaussian fraction (keeps it in 0..1).
+ * The sign of J or Jp only flips or keeps the pattern, so they are left free and reported as |J|.
+ */
+export interface ModelSpec {
+  readonly line: LineModel;
+  readonly passives: number;
+}
+
+export function hasMix(spec: ModelSpec): boolean {
+  return spec.line.kind === 'pseudoVoigt';
+}
+
+export function passiveIndex(spec: ModelSpec, i: number): number {
+  return (hasMix(spec) ? 5 : 4) + i;
+}
+
+export function paramCount(spec: ModelSpec): number {
+  return passiveIndex(spec, spec.passives);
+}
+
+/** The width parameter of the line model (natural width, or FWHM for pseudo-Voigt). */
+export function lineWidth(spec: ModelSpec, theta: ArrayLike<number>): number {
+  const w = theta[2] ?? 0;
+  return spec.line.kind === 'pseudoVoigt' ? Math.exp(w) : w;
+}
+
+export function mixFraction(spec: ModelSpec, theta: ArrayLike<number>): number {
+  return hasMix(spec) ? 1 / (1 + Math.exp(-(theta[4] ?? 0))) : 0;
+}
+
+/** Apparent FWHM of one line in the processed spectrum for these parameters. */
+export function apparentFwhm(spec: ModelSpec, theta: ArrayLike<number>): number {
+  return spec.line.fwhm(lineWidth(spec, theta), mixFraction(spec, theta));
+}
+
+export function makeTheta(spec: ModelSpec, centre: number, j: number, width: number, passives: number[]): Float64Array {
+  const th = new Float64Array(paramCount(spec));
+  th[0] = centre;
+  th[1] = j;
+  th[2] = spec.line.kind === 'pseudoVoigt' ? Math.log(width) : width;
+  th[3] = 0;
+  if (hasMix(spec)) th[4] = 0;
+  passives.forEach((v, i) => (th[passiveIndex(spec, i)] = v));
+  return th;
+}
+
+/** The pattern at the given frequencies (Hz, a uniform axis), written into out. */
+export function pattern(spec: ModelSpec, theta: ArrayLike<number>, freqs: Float64Array, out: Float64Array): void {
+  const centre = theta[0] ?? 0;
+  const j = theta[1] ?? 0;
+  const width = lineWidth(spec, theta);
+  const mix = mixFraction(spec, theta);
+  const cp = Math.cos(theta[3] ?? 0);
+  const sp = Math.sin(theta[3] ?? 0);
+  const offsets: number[] = [];
+  const weights: number[] = [];
+  const nComb = 1 << spec.passives;
+  for (const s0 of [1, -1]) {
+    for (let c = 0; c < nComb; c++) {
+      let nu = centre + (s0 * j) / 2;
+      for (let i = 0; i < spec.passives; i++) nu += (((c >> i) & 1) ? -0.5 : 0.5) * (theta[passiveIndex(spec, i)] ?? 0);
+      offsets.push(nu);
+      weights.push(s0);
+    }
+  }
+  const m = freqs.length;
+  const step = m > 1 ? (freqs[1] ?? 0) - (freqs[0] ?? 0) : 0;
+  const re = new Float64Array(m);
+  const im = new Float64Array(m);
+  out.fill(0);
+  for (let k = 0; k < offsets.length; k++) {
+    // offset nu - f_i = (nu - f_0) - i * step on the uniform axis
+    spec.line.evaluateGrid((offsets[k] ?? 0) - (freqs[0] ?? 0), -step, width, mix, re, im);
+    const wt = weights[k] ?? 0;
+    for (let i = 0; i < m; i++) out[i] = (out[i] ?? 0) + wt * (cp * (re[i] ?? 0) - sp * (im[i] ?? 0));
+  }
+}
