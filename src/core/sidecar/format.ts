@@ -33,9 +33,30 @@ export function normalizeSidecar(s: Sidecar): Sidecar {
   };
 }
 
+/** Throws when the sidecar cannot be written as valid schema v1 text, naming the item and field. */
+function checkWritable(s: Sidecar): string {
+  s.picks.forEach((p) => finite(`pick ${p.id}`, { f2_ppm: p.f2Ppm, f1_ppm: p.f1Ppm }));
+  s.couplings.forEach((c) => finite(`coupling ${c.atoms.join('/')} ${c.method} ${c.dimension}`,
+    { j_hz: c.jHz, j_sd_hz: c.jSdHz, linewidth_hz: c.linewidthHz, ...Object.fromEntries((c.passiveHz ?? []).map((v, i) => [`passive_hz[${i}]`, v])) }));
+  const text = canonicalText(s);
+  const { doc, sink } = parseYaml(text, 'sidecar');
+  if (doc.errors.length === 0) validateDocument(doc, sink);
+  const errors = sink.list.filter((d) => d.severity === 'error');
+  if (errors.length > 0) {
+    throw new Error(`cannot write the sidecar: ${errors.map((d) => `${d.field ?? ''}: ${d.message.replace(/^[^:]*:\d+: /, '')}`).join('; ')}`);
+  }
+  return text;
+}
+
+function finite(what: string, values: Record<string, number | undefined>): void {
+  for (const [key, v] of Object.entries(values)) {
+    if (v !== undefined && !Number.isFinite(v)) throw new Error(`cannot write the sidecar: ${what}: ${key} is ${String(v)}`);
+  }
+}
+
 export function formatSidecar(sidecar: Sidecar, previousText?: string): string {
   const s = normalizeSidecar(sidecar);
-  if (previousText === undefined) return canonicalText(s);
+  if (previousText === undefined) return checkWritable(s);
   return formatOver(s, previousText, readSidecarText(previousText, 'previous text'));
 }
 
@@ -48,13 +69,14 @@ export function formatOver(sidecar: Sidecar, previousText: string, parsed: Parse
     const first = parsed.result.diagnostics.find((d) => d.severity === 'error');
     throw new Error(`cannot rewrite over a sidecar with errors: ${first?.message ?? 'unreadable'}`);
   }
+  const canonical = checkWritable(s);
   const layout = buildLayout(previousText, doc, lines);
   const kept = layout === null ? null : assemble(s, normalizeSidecar(old), layout);
-  if (kept !== null && readsBackAs(kept, s)) return kept;
+  if (kept !== null && readsBackAs(kept, canonical)) return kept;
   // Layout not understood, or the result would not read back: canonical text, with every comment
   // (full-line or end-of-line) moved to the top so that nothing people wrote is lost.
   const comments = allComments(splitLines(previousText).lines);
-  return (comments.length > 0 ? `${comments.join('\n')}\n` : '') + canonicalText(s);
+  return (comments.length > 0 ? `${comments.join('\n')}\n` : '') + canonical;
 }
 
 function allComments(lines: readonly string[]): string[] {
@@ -77,10 +99,10 @@ function canonicalList(key: string, items: FieldLine[][]): string[] {
   return out;
 }
 
-function readsBackAs(text: string, expected: Sidecar): boolean {
+function readsBackAs(text: string, canonical: string): boolean {
   const { doc, sink } = parseYaml(text, 'rewritten text');
   const back = doc.errors.length === 0 ? validateDocument(doc, sink) : null;
-  return back !== null && isWritable(sink.list) && canonicalText(normalizeSidecar(back)) === canonicalText(expected);
+  return back !== null && isWritable(sink.list) && canonicalText(normalizeSidecar(back)) === canonical;
 }
 
 function assemble(s: Sidecar, old: Sidecar, layout: Layout): string {

@@ -70,6 +70,29 @@ describe('formatSidecar: canonical form', () => {
   });
 });
 
+describe('formatSidecar refuses data it cannot write as valid schema v1, naming item and field', () => {
+  const base = (): Sidecar => newSidecar('a.jdx', SHA_ABC);
+  it('rejects non-finite numbers', () => {
+    const s = base();
+    s.picks.push({ id: 'p-1', f2Ppm: Number.NaN, label: [] });
+    expect(() => formatSidecar(s)).toThrow('cannot write the sidecar: pick p-1: f2_ppm is NaN');
+    const c = base();
+    c.couplings.push({ atoms: ['H-1', 'H-2'], jHz: 1, jSdHz: 0.1, method: 'fit', dimension: 'F2', picks: [], flags: [], passiveHz: [1, Infinity] });
+    expect(() => formatSidecar(c)).toThrow('coupling H-1/H-2 fit F2: passive_hz[1] is Infinity');
+  });
+  it('rejects duplicate ids, bad ids, empty labels and negative standard deviations', () => {
+    const s = base();
+    s.picks.push({ id: 'p-1', f2Ppm: 1, label: [] }, { id: 'p-1', f2Ppm: 2, label: [] });
+    expect(() => formatSidecar(s)).toThrow(/picks\[1\]\.id: id "p-1" is already used/);
+    const t = base();
+    t.picks.push({ id: 'has space', f2Ppm: 1, label: [''] });
+    expect(() => formatSidecar(t)).toThrow(/picks\[0\]\.id: .*not a valid id.*picks\[0\]\.label\[0\]: expected atom labels/);
+    const u = base();
+    u.couplings.push({ atoms: ['H-1', 'H-2'], jHz: 1, jSdHz: -0.1, method: 'fit', dimension: 'F2', picks: [], flags: [] });
+    expect(() => formatSidecar(u)).toThrow(/couplings\[0\]\.j_sd_hz: must not be negative/);
+  });
+});
+
 describe('formatSidecar with the previous text: people\'s comments survive', () => {
   const commented = golden('commented.couplet.yaml');
 
