@@ -6,8 +6,6 @@ interface Summary {
   readonly colMin: number;
   readonly colMax: number;
   readonly row: number;
-  /** The tallest extremum. */
-  readonly top: Extremum;
 }
 
 /**
@@ -16,11 +14,13 @@ interface Summary {
  * signal-to-noise the inner ones fall below the level and the outer ones can lie further apart
  * than the link distance. Such a half has all its extrema within one F1 point (one "row" of lobes)
  * - a whole cross peak is antiphase in F1 and always spans more - so two halves are joined when:
- * both are one row tall, they overlap in F2, their rows are at most `reach1` points apart, and they
- * have opposite signs at the same F2 position (the F1 antiphase of one multiplet). Two distinct
- * cross peaks each keep both signs along F1 and are never joined by this rule.
+ * both are one row tall, their F2 ranges overlap or lie within `reach2` points, their rows are at
+ * most `reach1` points apart, and no two of their extrema at the same F2 position (within
+ * ALIGNED points) have the same sign (in one multiplet the two F1 halves are of opposite sign).
+ * Two distinct cross peaks each keep both signs along F1 and are never joined by this rule, unless
+ * both lost one F1 half (weak peaks) and lie within `reach1` rows of each other in the same columns.
  */
-export function joinHalves(extrema: readonly Extremum[], groups: number[][], reach1: number): number[][] {
+export function joinHalves(extrema: readonly Extremum[], groups: number[][], reach1: number, reach2: number): number[][] {
   const sums = groups.map((g) => summarise(extrema, g));
   const pairs: { a: number; b: number; gap: number }[] = [];
   for (let a = 0; a < groups.length; a++) {
@@ -29,8 +29,8 @@ export function joinHalves(extrema: readonly Extremum[], groups: number[][], rea
       const sb = sums[b];
       if (!sa || !sb || !isHalf(sa) || !isHalf(sb)) continue;
       const gap = Math.abs(sa.row - sb.row);
-      if (gap > reach1 || sa.colMax < sb.colMin || sb.colMax < sa.colMin) continue;
-      if (signNear(extrema, groups[b] ?? [], sa.top.col) !== -sa.top.sign) continue;
+      if (gap > reach1 || sa.colMax + reach2 < sb.colMin || sb.colMax + reach2 < sa.colMin) continue;
+      if (sameSignAligned(extrema, groups[a] ?? [], groups[b] ?? [])) continue;
       pairs.push({ a, b, gap });
     }
   }
@@ -53,20 +53,24 @@ function isHalf(s: Summary): boolean {
 
 function summarise(extrema: readonly Extremum[], group: readonly number[]): Summary | undefined {
   const list = group.map((i) => extrema[i]).filter((e): e is Extremum => e !== undefined);
-  const top = list.reduce<Extremum | undefined>((t, e) => (!t || Math.abs(e.height) > Math.abs(t.height) ? e : t), undefined);
-  if (!top) return undefined;
+  if (list.length === 0) return undefined;
   const rows = list.map((e) => e.row);
   const cols = list.map((e) => e.col);
   const row = rows.reduce((s, r) => s + r, 0) / rows.length;
-  return { rowMin: Math.min(...rows), rowMax: Math.max(...rows), colMin: Math.min(...cols), colMax: Math.max(...cols), row, top };
+  return { rowMin: Math.min(...rows), rowMax: Math.max(...rows), colMin: Math.min(...cols), colMax: Math.max(...cols), row };
 }
 
-/** Sign of the group's extremum nearest in F2 to `col`. */
-function signNear(extrema: readonly Extremum[], group: readonly number[], col: number): number {
-  let best: Extremum | undefined;
-  for (const i of group) {
-    const e = extrema[i];
-    if (e && (!best || Math.abs(e.col - col) < Math.abs(best.col - col))) best = e;
+/** Two extrema of one group each closer than this in F2, points, count as the same F2 position. */
+const ALIGNED = 1.5;
+
+/** True when some extremum of a and some of b sit at the same F2 position with the same sign. */
+function sameSignAligned(extrema: readonly Extremum[], a: readonly number[], b: readonly number[]): boolean {
+  for (const i of a) {
+    for (const j of b) {
+      const ea = extrema[i];
+      const eb = extrema[j];
+      if (ea && eb && ea.sign === eb.sign && Math.abs(ea.col - eb.col) <= ALIGNED) return true;
+    }
   }
-  return best?.sign ?? 0;
+  return false;
 }

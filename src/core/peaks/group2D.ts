@@ -63,7 +63,7 @@ export function linkExtrema(s: Spectrum2D, extrema: readonly Extremum[], opts: L
     groups.set(root, list);
   }
   const linked = [...groups.values()].map((g) => g.sort((x, y) => x - y));
-  return joinHalves(extrema, linked, 2 * reach1);
+  return joinHalves(extrema, linked, 2 * reach1, reach2);
 }
 
 function colOf(extrema: readonly Extremum[], i: number): number {
