@@ -16,7 +16,10 @@ export interface ParseOptions {
 }
 
 export interface ParseResult {
-  /** Null when the file cannot be read as schema v1 at all (syntax, conflict, schema, data). */
+  /**
+   * Null when the file cannot be read as schema v1 at all (syntax, conflict, schema, data).
+   * Otherwise the picks and couplings that passed validation; the others are left out and reported.
+   */
   sidecar: Sidecar | null;
   diagnostics: SidecarDiagnostic[];
   /** True when the file holds git conflict markers. */
