@@ -82,8 +82,9 @@ function xyDataSpec(scope: LabelScope, r: LabelledRecord, file: string): TableSp
     firstText: scope.require('FIRSTX', why).value,
     last: scope.number('LASTX', why),
     points: scope.number('NPOINTS', why),
-    xFactor: scope.optionalNumber('XFACTOR', 1),
-    yFactor: scope.optionalNumber('YFACTOR', 1),
+    // Required by the standard (McDonald & Wilks 1988 [from memory]); a lost YFACTOR would silently rescale.
+    xFactor: scope.number('XFACTOR', why),
+    yFactor: scope.number('YFACTOR', why),
     ...(firstY
       ? { firstY: { value: parseNumber(firstY.value, file, firstY.line, 'FIRSTY'), text: firstY.value, line: firstY.line, field: 'FIRSTY' } }
       : {}),
@@ -108,6 +109,7 @@ function columnNumber(scope: LabelScope, label: string, i: number, sym: string, 
   throw new JcampError(file, scope.line, `missing required ##${label}= entry for column ${sym}`);
 }
 
+/** An NTUPLES column without a FACTOR entry is taken as unscaled (factor 1). */
 function ntuplesSpec(scope: LabelScope, r: LabelledRecord, pageLine: number, seen: Set<string>, file: string): TableSpec {
   const m = TABLE_FORM.exec(r.value);
   const kind = (m?.[4] ?? '').trim().toUpperCase();

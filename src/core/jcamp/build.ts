@@ -167,7 +167,9 @@ function f1Axis(block: JcampBlock, pages: DecodedPage[], f2Symbol: string, mhz: 
       throw new JcampError(file, pages[r]?.line ?? line, `page ${sym}=${pv.v} is not row ${r} of the ${sym} axis (${first + r * step} expected from FIRST/LAST)`, 'PAGE');
     }
   });
-  if (n < 2) throw new JcampError(file, block.line, `a 2D spectrum needs at least 2 pages, found ${n}`);
+  if (n < 2 || first === last) {
+    throw new JcampError(file, line, `a 2D spectrum needs at least 2 pages and distinct ${sym} FIRST/LAST (found ${n} pages, ${first} to ${last})`);
+  }
   return makeAxis(n, toHz(first, units, mhz, file, line), toHz(last, units, mhz, file, line), mhz);
 }
 

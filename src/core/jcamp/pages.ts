@@ -49,10 +49,6 @@ export class LabelScope {
     const r = this.require(label, why);
     return parseNumber(r.value, this.file, r.line, label);
   }
-  optionalNumber(label: string, fallback: number): number {
-    const r = this.map.get(label);
-    return r ? parseNumber(r.value, this.file, r.line, label) : fallback;
-  }
 }
 
 /** Everything needed to decode one table besides the data lines. */

@@ -6,7 +6,8 @@ import { describe, expect, it } from 'vitest';
 import { parseJcamp, writeJcamp2D } from '../../../src/core/jcamp';
 import { makeAxis } from '../../../src/core/spectrum/axis';
 import { make2D } from '../../../src/core/spectrum/spectrum';
-import { jcampErrorOf, TINY_1D } from './helpers';
+import { JcampError } from '../../../src/core/jcamp';
+import { jcampErrorOf, seeded, TINY_1D } from './helpers';
 
 const GOOD = TINY_1D;
 
@@ -90,6 +91,8 @@ describe('errors name file, line and what is wrong', () => {
   it('missing required labels: observe frequency, FIRSTX', () => {
     expect(errorOf(variant(6)).message).toBe('tiny.jdx:1: missing required ##.OBSERVE FREQUENCY= (MHz; needed for ppm)');
     expect(errorOf(variant(11)).message).toBe('tiny.jdx:1: missing required ##FIRSTX= (needed to decode ##XYDATA=)');
+    // YFACTOR is required too: assuming 1 would silently rescale the spectrum.
+    expect(errorOf(variant(10)).message).toBe('tiny.jdx:1: missing required ##YFACTOR= (needed to decode ##XYDATA=)');
   });
 
   it('non-numeric fields', () => {
@@ -142,5 +145,29 @@ describe('LINK (compound) files', () => {
   it('a ##TITLE= inside an unfinished data block is an error naming both lines', () => {
     const e = errorOf(GOOD.slice(0, 18).concat(GOOD).join('\n'));
     expect(e.message).toBe('tiny.jdx:19: ##TITLE= inside the block "tiny" opened at line 1, which has no ##END=');
+  });
+});
+
+describe('damaged files (house rule: a JcampError naming file and line, never another exception)', () => {
+  it('500 seeded random edits of written and hand-written files either parse or throw a JcampError', () => {
+    const s = make2D('fuzz', Float64Array.from({ length: 6 * 50 }, (_, i) => Math.round(Math.sin(i) * 1000)), makeAxis(6, 40, -20, 500), makeAxis(50, 30, -30, 500));
+    const bases = [writeJcamp2D(s), writeJcamp2D(s, { encoding: 'AFFN' }), GOOD.join('\r\n')];
+    const rnd = seeded(2024);
+    const alphabet = '0123456789.+-, @A%JjSsZ?$#=\n\r\u0000\u00ffE(XY)';
+    let rejected = 0;
+    for (let k = 0; k < 500; k++) {
+      let t = bases[k % bases.length] ?? '';
+      const at = Math.floor(rnd() * t.length);
+      const ch = alphabet[Math.floor(rnd() * alphabet.length)] ?? '';
+      t = rnd() < 0.5 ? t.slice(0, at) + ch + t.slice(at + 1) : t.slice(0, at) + t.slice(at + 1 + Math.floor(rnd() * 40));
+      try {
+        parseJcamp(t, 'fuzz.jdx');
+      } catch (e) {
+        expect(e).toBeInstanceOf(JcampError);
+        expect((e as Error).message).toMatch(/^fuzz\.jdx:\d+: /);
+        rejected++;
+      }
+    }
+    expect(rejected).toBeGreaterThan(250); // most edits of data lines break a check
   });
 });
