@@ -17,7 +17,12 @@ export interface Extremum {
   gridCol: number;
 }
 
-/** Bounding box of a cross peak. ppm limits run high to low (from >= to); indices low to high. */
+/**
+ * Bounding box of a cross peak: the union of every lobe's half-height span along its own row and
+ * column (extent.ts), so it covers the multiplet's lines without growing with the signal-to-noise
+ * ratio; callers that fit line tails should pad it. ppm limits run high to low (from >= to);
+ * point indices low to high, inclusive.
+ */
 export interface CrossPeakExtent {
   f1FromPpm: number;
   f1ToPpm: number;
