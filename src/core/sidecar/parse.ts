@@ -60,9 +60,32 @@ export function parseYaml(text: string, fileName: string): { doc: Document; sink
   const lines = new LineCounter();
   const doc = parseDocument(text, { lineCounter: lines, version: '1.2', prettyErrors: true, uniqueKeys: true });
   const sink = new DiagnosticSink(fileName, lines);
-  for (const e of doc.errors) sink.at(e.pos[0], 'error', 'yaml-syntax', undefined, `YAML: ${firstLine(e.message)}`);
+  for (const e of doc.errors) {
+    const at = e.code === 'MISSING_CHAR' ? openingQuote(text, e.pos[0], e.message) ?? e.pos[0] : e.pos[0];
+    sink.at(at, 'error', 'yaml-syntax', undefined, `YAML: ${firstLine(e.message)}`);
+  }
   for (const w of doc.warnings) sink.at(w.pos[0], 'warning', 'yaml-syntax', undefined, `YAML: ${firstLine(w.message)}`);
   return { doc, sink, lines };
+}
+
+/**
+ * The parser notices an unclosed quoted scalar only where the file (or the flow) ends; the person
+ * needs the line where the quote was opened: the last unescaped quote of that kind before `end`
+ * (inside the scalar `""` is written `\"` and `''` doubled, YAML 1.2.2 §7.3.1-7.3.2).
+ */
+function openingQuote(text: string, end: number, message: string): number | undefined {
+  const q = /closing "quote/.test(message) ? '"' : /closing 'quote/.test(message) ? "'" : undefined;
+  if (q === undefined) return undefined;
+  for (let i = Math.min(end, text.length) - 1; i >= 0; i--) {
+    if (text[i] !== q) continue;
+    if (q === '"' && text[i - 1] === '\\') continue;
+    if (q === "'" && text[i - 1] === "'") {
+      i--;
+      continue;
+    }
+    return i;
+  }
+  return undefined;
 }
 
 /** The message without the position suffix and code excerpt that prettyErrors appends. */

@@ -87,6 +87,16 @@ describe('parseSidecar: problems become diagnostics with line and field', () => 
     }
   });
 
+  it('reports an unclosed quote at the line where it was opened (YAML 1.2.2 §7.3.1 double-quoted, §7.3.2 single-quoted)', () => {
+    const dq = 'schema: couplet-sidecar/1\ndata:\n  file: "a \\" b.jdx\npicks: []\ncouplings: []\n';
+    const sq = "schema: couplet-sidecar/1\ndata:\n  file: 'it''s.jdx\npicks: []\ncouplings: []\n";
+    for (const text of [dq, sq]) {
+      const { diagnostics } = parseSidecar(text, NAME);
+      expect(diagnostics[0]).toMatchObject({ code: 'yaml-syntax', line: 3, column: 9 });
+      expect(diagnostics[0]?.message).toMatch(/Missing closing .quote/);
+    }
+  });
+
   it('refuses an unknown schema and a future one, at line 1, with no sidecar', () => {
     const unknown = parseSidecar(replaceLine(canonical, 'couplet-sidecar/1', 'other-tool/1'), NAME);
     expect(unknown.sidecar).toBeNull();
