@@ -1,3 +1,13 @@
+/**
+ * JCAMP-DX for NMR: read 1D (`##XYDATA=`, NTUPLES real/imaginary pages) and 2D spectra (nD NMR
+ * NTUPLES, one `##PAGE= F1=` per row) in every ASDF form, and write them back (DIFDUP or AFFN).
+ * Decisions, each documented where it is made:
+ * - `?` (missing ordinate) is rejected with its line (asdf.ts): no NaN ever enters a spectrum.
+ * - X check tolerance: the precision written, but at least half a point spacing (pages.ts).
+ * - `##.SHIFT REFERENCE=` moves a 1D axis when it names a point inside the data (build.ts).
+ * - The writer quantises to integers x FACTOR = max|y| / 2^20; reading gives exactly those (writer.ts).
+ * - Processing is kept in our private `##$COUPLET PROCESSING=` labels (processingLabel.ts).
+ */
 import type { Spectrum } from '../spectrum/spectrum';
 import { findLabel, readJcampBlocks, type JcampBlock, type JcampFile } from './blocks';
 import { buildSpectrum, isNmrSpectrum } from './build';

@@ -132,9 +132,9 @@ export function writeJcamp2D(s: Spectrum2D, opts?: JcampWriteOptions): string {
     `##VAR_FORM= AFFN, AFFN, ${encoding === 'AFFN' ? 'AFFN' : 'ASDF'}`,
     `##VAR_DIM= ${f1.points}, ${n2}, ${n2}`,
     '##UNITS= HZ, HZ, ARBITRARY UNITS',
-    `##FACTOR= 1, 1, ${factor}`,
-    `##FIRST= ${f1.firstHz}, ${f2.firstHz}, ${yFirst}`,
-    `##LAST= ${f1.lastHz}, ${f2.lastHz}, ${yLast}`,
+    ...record('FACTOR', `1, 1, ${factor}`),
+    ...record('FIRST', `${f1.firstHz}, ${f2.firstHz}, ${yFirst}`),
+    ...record('LAST', `${f1.lastHz}, ${f2.lastHz}, ${yLast}`),
   ];
   const step1 = hzPerPoint(f1);
   const x = xText(f2);
