@@ -51,6 +51,19 @@ describe('every public JCAMP-DX test file decodes (SOURCES.md)', () => {
           const tol = Math.abs(yFactor) + 10 ** -decimals;
           expect(Math.abs((page.values[0] ?? NaN) - Number(firstY))).toBeLessThanOrEqual(tol);
         }
+        // NTUPLES: the FIRST entry of each Y column is the first ordinate of that column's page.
+        const first = headerValue(header, 'FIRST')?.split(',');
+        const factor = headerValue(header, 'FACTOR')?.split(',');
+        const symbols = headerValue(header, 'SYMBOL')?.split(',').map((x) => x.trim());
+        if (first && factor && symbols && block.pages.length === 2) {
+          for (const p of block.pages) {
+            const i = symbols.indexOf(p.ySymbol);
+            const text = first[i]?.trim() ?? '';
+            const decimals = /\.(\d*)/.exec(text)?.[1]?.length ?? 0;
+            const tol = Math.abs(Number(factor[i])) + 10 ** -decimals;
+            expect(Math.abs((p.values[0] ?? NaN) - Number(text))).toBeLessThanOrEqual(tol);
+          }
+        }
       });
     });
   }
