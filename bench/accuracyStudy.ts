@@ -146,6 +146,9 @@ export interface GroupSummary {
   failed: number;
   fitP90: number;
   naiveP90: number;
+  /** Median reported sigma of the fit, and 1.645 times it: the P90 |error| an unbiased estimator with that sigma would show. */
+  medianSd: number;
+  efficientP90: number;
   coverage: number;
 }
 
@@ -155,16 +158,22 @@ export function summarise(label: string, rs: CaseResult[]): GroupSummary {
     label, n: rs.length, failed: rs.length - ok.length,
     fitP90: percentile(ok.map((r) => Math.abs(r.fitErr)), 0.9),
     naiveP90: percentile(ok.map((r) => Math.abs(r.naiveErr)), 0.9),
+    medianSd: percentile(ok.map((r) => r.fitSd), 0.5),
+    efficientP90: 1.645 * percentile(ok.map((r) => r.fitSd), 0.5),
     coverage: ok.length ? ok.filter((r) => r.covered).length / ok.length : NaN,
   };
 }
 
 export function runAccuracyStudy(cases: StudyCase[] = studyGrid(FULL_GRID)): { results: CaseResult[]; groups: GroupSummary[] } {
   const results = cases.map(runCase);
-  const groups: GroupSummary[] = [
-    summarise('all, J >= 0.5 w', results.filter((r) => r.jOverW >= 0.5)),
-    summarise('all, J < 0.5 w', results.filter((r) => r.jOverW < 0.5)),
-  ];
+  const resolved = results.filter((r) => r.jOverW >= 0.5);
+  const unresolved = results.filter((r) => r.jOverW < 0.5);
+  const groups: GroupSummary[] = [summarise('all, J >= 0.5 w', resolved), summarise('all, J < 0.5 w', unresolved)];
+  for (const snr of [...new Set(results.map((r) => r.snr))]) {
+    groups.push(summarise(`J >= 0.5 w, SNR ${snr}`, resolved.filter((r) => r.snr === snr)));
+    groups.push(summarise(`J < 0.5 w, SNR ${snr}`, unresolved.filter((r) => r.snr === snr)));
+  }
+  groups.push(summarise('J < 0.5 w, no passive coupling', unresolved.filter((r) => r.passiveOverW === 0)));
   const by = <K extends keyof StudyCase>(key: K, name: string): void => {
     for (const v of [...new Set(results.map((r) => r[key]))]) groups.push(summarise(`${name} = ${v}`, results.filter((r) => r[key] === v)));
   };
@@ -178,7 +187,12 @@ export function runAccuracyStudy(cases: StudyCase[] = studyGrid(FULL_GRID)): { r
 
 export function markdownTable(groups: GroupSummary[]): string {
   const f = (x: number, d = 3): string => (Number.isFinite(x) ? x.toFixed(d) : 'n/a');
-  const lines = ['| group | cases | failed | fit P90 abs error (Hz) | naive P90 abs error (Hz) | coverage at 2 sigma |', '|---|---|---|---|---|---|'];
-  for (const g of groups) lines.push(`| ${g.label} | ${g.n} | ${g.failed} | ${f(g.fitP90)} | ${f(g.naiveP90)} | ${f(g.coverage * 100, 1)} % |`);
+  const lines = [
+    '| group | cases | failed | fit P90 abs error (Hz) | naive P90 abs error (Hz) | median fit sigma (Hz) | 1.645 x median sigma (Hz) | coverage at 2 sigma |',
+    '|---|---|---|---|---|---|---|---|',
+  ];
+  for (const g of groups) {
+    lines.push(`| ${g.label} | ${g.n} | ${g.failed} | ${f(g.fitP90)} | ${f(g.naiveP90)} | ${f(g.medianSd)} | ${f(g.efficientP90)} | ${f(g.coverage * 100, 1)} % |`);
+  }
   return lines.join('\n');
 }

@@ -140,6 +140,24 @@ function startWithPassive(fit: FitResult, next: ModelSpec, j: number, jp: number
   return th;
 }
 
+/**
+ * Fraction of the apparent linewidth below which a passive coupling, or its difference from the
+ * active one, cannot be told apart from a smaller model: with Jp ≈ J the two inner lines of the
+ * multiplet cancel (the pattern becomes an antiphase pair at J + Jp), and Jp → 0 only broadens the
+ * lines. Such candidates soak up line-shape mismatch instead of measuring a coupling.
+ */
+const RESOLVABLE_FRACTION = 0.25;
+
+function resolvable(fit: FitResult): boolean {
+  const w = apparentFwhm(fit.spec, fit.theta);
+  const j = Math.abs(fit.theta[1] ?? 0);
+  for (let i = 0; i < fit.spec.passives; i++) {
+    const jp = Math.abs(fit.theta[passiveIndex(fit.spec, i)] ?? 0);
+    if (jp < RESOLVABLE_FRACTION * w || Math.abs(jp - j) < RESOLVABLE_FRACTION * w) return false;
+  }
+  return true;
+}
+
 export interface Selection {
   fit: FitResult;
   notes: string[];
@@ -169,13 +187,14 @@ export function selectModel(ctx: FitContext, line: LineModel, maxPassive: number
     // When even the larger model leaves more than the noise, judge against that residual (an F-test).
     const scale = Math.max(1, uncertainty(ctx, cand).chi2Reduced);
     const stat = (fit.rss - cand.rss) / (ctx.sigma ** 2 * varFactor * scale);
-    if (!(stat > CHI2_1_P001)) break;
+    if (!(stat > CHI2_1_P001) || !resolvable(cand)) break;
     spec = next;
     fit = cand;
   }
   const notes = [
     `Passive couplings chosen by a likelihood-ratio test at p < 0.001 (chi-squared, 1 degree of freedom, ` +
-      `correlated noise accounted for, scaled by the residual when it exceeds the noise), 0 to ${maxPassive} tried; kept ${spec.passives}.`,
+      `correlated noise accounted for, scaled by the residual when it exceeds the noise; a coupling within a quarter ` +
+      `linewidth of 0 or of J is not kept), 0 to ${maxPassive} tried; kept ${spec.passives}.`,
   ];
   return { fit, notes };
 }
