@@ -39,10 +39,15 @@ describe.runIf(existsSync(file))('pickCrossPeaks on the independently written DQ
     }
   });
 
-  it('classifies every other peak as diagonal (centre on F1 = F2)', () => {
-    for (const p of peaks.filter((q) => q.kind === 'diagonal')) {
-      expect(Math.abs(p.f1Ppm - p.f2Ppm) * mhz).toBeLessThanOrEqual(1.5 * r1);
-      expect(p.partner).toBeNull();
+  it('finds a diagonal peak at every shift that takes part in a listed cross peak, and nothing else', () => {
+    // In a DQF-COSY each coupled proton gives a diagonal multiplet at (shift, shift).
+    const shifts = [...new Set(truth.cross_peaks.flatMap((t) => [t.f1_ppm, t.f2_ppm]))];
+    for (const ppm of shifts) {
+      const i = found(ppm, ppm);
+      expect(i, `diagonal at ${ppm}`).toBeGreaterThanOrEqual(0);
+      expect(peaks[i]?.kind).toBe('diagonal');
+      expect(peaks[i]?.partner).toBeNull();
     }
+    expect(peaks).toHaveLength(truth.cross_peaks.length + shifts.length);
   });
 });
