@@ -86,7 +86,10 @@ export function mergeBody(body: readonly string[], dashIndent: number, oldFields
       const [firstLine = '', ...rest] = g.lines;
       out.push(withLeadIfMoved(firstLine, first, dashIndent, contentIndent), ...rest);
     } else {
-      out.push(withLead(f.text, first, dashIndent, contentIndent) + trailingComment(g.lines[0] ?? ''));
+      // A value written over several lines becomes one line; comments on its other lines go above it.
+      const [head = '', ...more] = g.lines;
+      const moved = more.flatMap((l) => (commentStart(l) < 0 ? [] : [`${' '.repeat(contentIndent)}${l.slice(commentStart(l))}`]));
+      out.push(...moved, withLead(f.text, first, dashIndent, contentIndent) + trailingComment(head));
     }
   });
   const kept = new Set(newFields.map((f) => f.key));

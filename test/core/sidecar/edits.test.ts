@@ -158,6 +158,14 @@ describe('edits on hand-written, non-canonical layouts keep that layout', () => 
     expect(gitDiffHunks(hand, out).map((h) => [h.oldCount, h.newCount])).toEqual([[0, 3]]);
   });
 
+  it('keeps the comments of a value written over several lines when that value changes', () => {
+    const multi = hand.replace('  label: [H-3]\n', '  label:   # F2 atom first\n    - H-3  # from the HSQC\n    # second atom unknown\n');
+    const out = apply(multi, relabelPick(multi, 'p-3', ['H-3', 'H-4'], NAME));
+    expect(comments(out)).toEqual(comments(multi));
+    // The comment line after the list is the item's closing comment and stays after it.
+    expect(out).toContain('  # from the HSQC\n  label: [H-3, H-4]   # F2 atom first\n    # second atom unknown\n');
+  });
+
   it('keeps end-of-line comments (also after quoted text holding #) and the key-line comment when a list stops being empty', () => {
     let out = apply(hand, movePick(hand, 'p-1', { f2Ppm: 1.25 }, NAME));
     expect(out).toContain('  f2_ppm: 1.2500   # hmm\n  label: "H-1"  # \'quoted # not a comment\'\n');
