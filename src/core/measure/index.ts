@@ -1,4 +1,5 @@
 import { resolutionHz, hzToPpm } from '../spectrum/axis';
+import { estimateNoise } from '../spectrum/noise';
 import type { Spectrum2D } from '../spectrum/spectrum';
 import { correlationFromProcessing, estimateCorrelation, type NoiseCorrelation } from './correlation';
 import { selectModel, uncertainty, type FitContext, type FitResult } from './fit';
@@ -6,7 +7,6 @@ import { qualityFlags } from './flags';
 import { processedLine, pseudoVoigtLine } from './lineshape';
 import { apparentFwhm, lineWidth, mixFraction, passiveIndex } from './model';
 import { naiveSplitting } from './naive';
-import { noiseOutsidePeak } from './noise';
 import { extractTraces, ppmOf, sampleTraces, type TraceBlock } from './traces';
 import { MeasureError, type CrossPeakInput, type Measurement, type MeasureOptions, type TraceFit } from './types';
 
@@ -77,10 +77,8 @@ export function measureCrossPeak(s: Spectrum2D, peak: CrossPeakInput, opts: Meas
   const dimension = opts.dimension ?? 'F2';
   const method = opts.method ?? 'fit';
   const block = extractTraces(s, peak, dimension, opts.rows ?? 8);
-  const sigma = opts.noise ?? noiseOutsidePeak(s, block);
-  if (!(sigma > 0)) {
-    throw new MeasureError(`the noise level of '${s.title}' is zero or unmeasurable outside the cross peak; pass it explicitly`);
-  }
+  const sigma = opts.noise ?? estimateNoise(s.data);
+  if (!(sigma > 0)) throw new MeasureError(`the noise level of '${s.title}' is zero or unmeasurable; pass it explicitly`);
   const rho = correlations(s, block);
   const ctx: FitContext = { block, sigma, rhoAlong: rho.along, rhoAcross: rho.across };
   const naive = naiveSplitting(block, sigma, rho.along, rho.across);
