@@ -62,6 +62,9 @@ export interface Pick {
   note?: string;
 }
 
+/** Alias for modules that also need TypeScript's built-in `Pick<T, K>` (which `Pick` shadows on import). */
+export type SidecarPick = Pick;
+
 export interface Coupling {
   /** The two coupled atoms; the writer puts them in natural order. */
   atoms: [string, string];

@@ -249,11 +249,13 @@ describe('edit plumbing', () => {
     expect(() => addPick(canonical, { id: 'p-1.2500-1.2500', f2Ppm: 1, label: [] }, NAME)).toThrow(/already exists/);
   });
 
-  it('gives new picks ids from their position, made unique with a suffix', () => {
+  it('gives new picks ids from their position, made unique with a suffix; names sidecars after the data file', () => {
     const s = read(canonical);
     expect(pickIdFor(s, 4.12, 2.34)).toBe('p-4.1200-2.3400-2');
     expect(pickIdFor(s, 7.004449)).toBe('p-7.0044');
+    expect(sidecarNameFor('cosy.jdx')).toBe('cosy.jdx.couplet.yaml'); // the example in design.md
     expect(sidecarNameFor('spectra/cosy.jdx')).toBe('spectra/cosy.jdx.couplet.yaml');
+    expect(() => sidecarNameFor('spectra/')).toThrow(/not a data file name/);
     expect(() => newSidecar('cosy.jdx', 'xyz')).toThrow(/not a SHA-256/);
   });
 });
