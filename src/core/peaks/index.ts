@@ -5,5 +5,5 @@ export { pickCrossPeaks, type CrossPeakOptions } from './crossPeaks';
 export { nearestCrossPeak } from './nearest';
 export { pickMultiplets1D, type Multiplet1DOptions } from './multiplets1D';
 export { isDiagonal, assignPartners } from './symmetry';
-export { parabolicOffset, parabolicHeight } from './interpolate';
+export { parabolicOffset, parabolicHeight, lorentzianPeak } from './interpolate';
 export { pickingLevel, type PickingLevel } from './level';

@@ -1,7 +1,7 @@
 import { pointToHz, pointToPpm, resolutionHz } from '../spectrum/axis';
 import type { Spectrum1D } from '../spectrum/spectrum';
 import { lobeSpan } from './extent';
-import { parabolicHeight, parabolicOffset } from './interpolate';
+import { lorentzianPeak } from './interpolate';
 import { pickingLevel } from './level';
 import type { LevelOptions, Line1D, Multiplet1D } from './types';
 
@@ -19,7 +19,7 @@ const PROMINENCE_WALK = 256;
 
 /**
  * 1D multiplets: positive local maxima above the level (threshold * sigma) and prominent enough,
- * interpolated by a three-point parabola (bias in interpolate.ts), grouped by single linkage along
+ * interpolated through 1/y (exact for Lorentzian lines: lorentzianPeak), grouped by single linkage along
  * the axis (a new multiplet starts at a gap wider than maxGapHz). Centre = height-weighted centroid
  * of the lines; extent = outermost lines to half their height. Sorted by ppm descending.
  */
@@ -57,9 +57,9 @@ function pickLines(s: Spectrum1D, level: number, prominence: number): Line1D[] {
     const r = d[i + 1] ?? 0;
     if (!(v > level && v > l && v >= r)) continue;
     if (prominence > 0 && Math.min(fall(d, i, -1), fall(d, i, 1)) < prominence) continue;
-    const offset = parabolicOffset(l, v, r);
+    const { offset, height } = lorentzianPeak(l, v, r);
     const point = i + offset;
-    lines.push({ point, hz: pointToHz(s.axis, point), ppm: pointToPpm(s.axis, point), height: parabolicHeight(l, v, r, offset) });
+    lines.push({ point, hz: pointToHz(s.axis, point), ppm: pointToPpm(s.axis, point), height });
   }
   return lines;
 }

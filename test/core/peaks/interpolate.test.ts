@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { parabolicHeight, parabolicOffset } from '../../../src/core/peaks/interpolate';
+import { lorentzianPeak, parabolicHeight, parabolicOffset } from '../../../src/core/peaks/interpolate';
 import { gauss, lorentz } from './synth';
 
 /** Samples of a unit line of width w (points) at -1, 0, 1 when the true maximum is at delta. */
@@ -46,5 +46,22 @@ describe('parabolicOffset', () => {
     expect(parabolicOffset(0, 1, 1)).toBe(0.5);
     expect(parabolicOffset(1, 1, 1)).toBe(0);
     expect(parabolicOffset(-0.9, -1, 0.2)).toBeGreaterThanOrEqual(-0.5);
+  });
+});
+
+describe('lorentzianPeak', () => {
+  it('is exact for a sampled Lorentzian (analytic: 1/L(x) = 1 + (2(x - x0)/w)^2 is a parabola)', () => {
+    for (const w of [1.5, 3, 6]) {
+      for (const delta of [-0.45, -0.2, 0, 0.3, 0.5]) {
+        const [l, c, r] = samples(lorentz, w, delta).map((y) => 7 * y) as [number, number, number];
+        const p = lorentzianPeak(l, c, r);
+        expect(p.offset).toBeCloseTo(delta, 10);
+        expect(p.height).toBeCloseTo(7, 10);
+      }
+    }
+  });
+
+  it('falls back to the parabola when a neighbour is not positive', () => {
+    expect(lorentzianPeak(-1, 2, 1).offset).toBeCloseTo(parabolicOffset(-1, 2, 1), 12);
   });
 });
