@@ -1,12 +1,12 @@
 /**
  * JCAMP-DX read/write speed on a 2048 x 1024 2D spectrum (the size a DQF-COSY is commonly
  * processed to), as ratios against a baseline measured in the same run: one pass over the text's
- * char codes (the least any reader must do). Run it from bench/index.ts, or bundle it alone:
- *   npx esbuild bench/jcampParse.ts --bundle --platform=node --outfile=/tmp/jb.js && node /tmp/jb.js
+ * char codes (the least any reader must do). Run by bench/index.ts (`npm run bench`).
  */
 import { parseJcamp, writeJcamp2D } from '../src/core/jcamp';
 import { makeAxis } from '../src/core/spectrum/axis';
 import { make2D, type Spectrum2D } from '../src/core/spectrum/spectrum';
+import { best, scanText } from './timing';
 
 export interface JcampBenchRow {
   readonly name: string;
@@ -33,21 +33,7 @@ function demoSpectrum(n1: number, n2: number): Spectrum2D {
   return make2D('bench', data, makeAxis(n1, 3000, 0, 600.13), makeAxis(n2, 3000.5, -0.2, 600.13));
 }
 
-function best(repeats: number, f: () => unknown): number {
-  let min = Infinity;
-  for (let i = 0; i < repeats; i++) {
-    const t0 = performance.now();
-    f();
-    min = Math.min(min, performance.now() - t0);
-  }
-  return min;
-}
 
-function scan(text: string): number {
-  let sum = 0;
-  for (let i = 0; i < text.length; i++) sum = (sum + text.charCodeAt(i)) | 0;
-  return sum;
-}
 
 export function runJcampBench(repeats = 5): JcampBenchRow[] {
   const s = demoSpectrum(1024, 2048);
@@ -55,7 +41,7 @@ export function runJcampBench(repeats = 5): JcampBenchRow[] {
   for (const encoding of ['DIFDUP', 'AFFN'] as const) {
     let text = '';
     const writeMs = best(2, () => (text = writeJcamp2D(s, { encoding })));
-    const baseline = best(repeats, () => scan(text));
+    const baseline = best(repeats, () => scanText(text));
     const readMs = best(repeats, () => parseJcamp(text, 'bench.jdx'));
     const mb = text.length / 1e6;
     rows.push({ name: `read 2D ${encoding}`, megabytes: mb, ms: readMs, ratio: readMs / baseline });
@@ -64,8 +50,3 @@ export function runJcampBench(repeats = 5): JcampBenchRow[] {
   return rows;
 }
 
-if (require.main === module) {
-  for (const r of runJcampBench()) {
-    console.log(`${r.name.padEnd(18)} ${r.megabytes.toFixed(1)} MB  ${r.ms.toFixed(0)} ms  x${r.ratio.toFixed(1)} baseline scan`);
-  }
-}
