@@ -33,7 +33,9 @@ function withTemp<T>(files: Record<string, string>, run: (dir: string) => T): T 
 /** `git merge-file -p ours base theirs`: the merged text and the number of conflicts (git's exit code). */
 export function gitMergeFile(ours: string, base: string, theirs: string): { text: string; conflicts: number } {
   return withTemp({ ours, base, theirs }, (dir) => {
-    const r = spawnSync('git', ['merge-file', '-p', 'ours', 'base', 'theirs'], { cwd: dir, encoding: 'utf8' });
+    // Pin the marker style: a user's merge.conflictStyle (diff3, zdiff3) would add `|||||||` sections.
+    const r = spawnSync('git', ['-c', 'merge.conflictStyle=merge', 'merge-file', '-p', 'ours', 'base', 'theirs'],
+      { cwd: dir, encoding: 'utf8' });
     if (r.status === null || r.status < 0) throw new Error(`git merge-file failed: ${r.stderr}`);
     return { text: r.stdout, conflicts: r.status };
   });
@@ -50,7 +52,9 @@ export interface DiffHunk {
 /** Hunks of `git diff --no-index -U0` between two texts. */
 export function gitDiffHunks(before: string, after: string): DiffHunk[] {
   return withTemp({ a: before, b: after }, (dir) => {
-    const r = spawnSync('git', ['diff', '--no-index', '--no-color', '-U0', 'a', 'b'], { cwd: dir, encoding: 'utf8' });
+    // --no-ext-diff and the pinned algorithm keep a user's git config out of the result.
+    const r = spawnSync('git', ['-c', 'diff.algorithm=myers', 'diff', '--no-index', '--no-color', '--no-ext-diff', '-U0', 'a', 'b'],
+      { cwd: dir, encoding: 'utf8' });
     if (r.status !== 0 && r.status !== 1) throw new Error(`git diff failed: ${r.stderr}`);
     const hunks: DiffHunk[] = [];
     for (const m of r.stdout.matchAll(/^@@ -(\d+)(?:,(\d+))? \+(\d+)(?:,(\d+))? @@/gm)) {
