@@ -1,4 +1,4 @@
-import { pointToHz, pointToPpm } from '../spectrum/axis';
+import { pointToHz, pointToPpm, resolutionHz } from '../spectrum/axis';
 import type { Spectrum2D } from '../spectrum/spectrum';
 import { lobeSpan } from './extent';
 import { pickExtrema2D } from './extrema2D';
@@ -11,15 +11,37 @@ export type CrossPeakOptions = LevelOptions & LinkOptions;
 /**
  * Peak picking for a phase-sensitive DQF-COSY: extrema of both signs (pickExtrema2D), grouped into
  * multiplets (linkExtrema), each summarised as one CrossPeak, classified as diagonal or cross,
- * matched with its symmetric partner, and sorted by F2 ppm descending, then F1 ppm descending.
+ * matched with its symmetric partner, and sorted by F2 ppm descending, then F1 ppm descending
+ * (sortPeaks: one F2 column at a time).
  */
 export function pickCrossPeaks(s: Spectrum2D, opts: CrossPeakOptions = {}): { peaks: CrossPeak[]; noise: number; level: number } {
   const { extrema, noise, level } = pickExtrema2D(s, opts);
   const groups = linkExtrema(s, extrema, opts);
   const peaks = groups.map((g) => summarise(s, g.map((i) => extrema[i]).filter((e): e is Extremum => e !== undefined)));
-  peaks.sort((a, b) => b.f2Ppm - a.f2Ppm || b.f1Ppm - a.f1Ppm);
-  assignPartners(s, peaks);
-  return { peaks, noise, level };
+  const sorted = sortPeaks(s, peaks);
+  assignPartners(s, sorted);
+  return { peaks: sorted, noise, level };
+}
+
+/** Peaks whose F2 centres lie within this many F2 points form one column for sorting. */
+const COLUMN_POINTS = 2;
+
+/**
+ * F2 ppm descending, then F1 ppm descending - with the peaks of one F2 column (same proton in F2,
+ * centres within COLUMN_POINTS of each other, chained) ordered by F1 alone, so that noise in the
+ * F2 centroids (a fraction of a point) cannot swap a column's peaks between runs or files.
+ */
+function sortPeaks(s: Spectrum2D, peaks: CrossPeak[]): CrossPeak[] {
+  const tol = COLUMN_POINTS * resolutionHz(s.f2) / s.f2.observeMhz;
+  const byF2 = [...peaks].sort((a, b) => b.f2Ppm - a.f2Ppm || b.f1Ppm - a.f1Ppm);
+  const columns: CrossPeak[][] = [];
+  for (const p of byF2) {
+    const column = columns[columns.length - 1];
+    const last = column?.[column.length - 1];
+    if (column && last && last.f2Ppm - p.f2Ppm <= tol) column.push(p);
+    else columns.push([p]);
+  }
+  return columns.flatMap((c) => c.sort((a, b) => b.f1Ppm - a.f1Ppm || b.f2Ppm - a.f2Ppm));
 }
 
 /**
