@@ -1,0 +1,282 @@
+/**
+ * Every message between the extension host and the Couplet webview, in one place.
+ * The webview starts with `ready`; the host answers `init`. Requests carry an `id`; their replies
+ * carry `inReplyTo` with that id (the same helper serves the fit worker). Incoming messages are
+ * validated with `parseFromWebview` / `parseToWebview` before use: a webview is a separate
+ * process and a stale or damaged message must not reach the host's logic.
+ */
+
+/** One axis as the webview needs it (ppm = Hz / observeMhz). */
+export interface AxisMeta {
+  readonly points: number;
+  readonly firstHz: number;
+  readonly lastHz: number;
+  readonly observeMhz: number;
+}
+
+/** Inclusive index ranges on the stored grid (rows = F1 points, cols = F2 points; 1D: one row). */
+export interface GridRegion {
+  readonly row0: number;
+  readonly row1: number;
+  readonly col0: number;
+  readonly col1: number;
+}
+
+export interface SpectrumMeta {
+  readonly fileName: string;
+  readonly title: string;
+  readonly dims: 1 | 2;
+  /** Indirect dimension; absent for 1D. */
+  readonly f1?: AxisMeta;
+  /** Direct dimension (the only axis of a 1D spectrum). */
+  readonly f2: AxisMeta;
+  /** Noise standard deviation in data units (contour levels are multiples of it). */
+  readonly noise: number;
+  readonly min: number;
+  readonly max: number;
+}
+
+export interface ContourSettings {
+  /** Lowest contour level, in multiples of the noise sigma. */
+  readonly lowestLevel: number;
+  /** Number of levels on each sign. */
+  readonly levels: number;
+  /** Ratio between successive levels (> 1). */
+  readonly spacing: number;
+}
+
+export interface ViewSettings {
+  readonly contours: ContourSettings;
+  readonly defaultMethod: 'fit' | 'naive';
+  /** Decimals shown for J (Hz). */
+  readonly jDecimals: number;
+}
+
+/** A cross, diagonal or 1D peak the core found; the webview snaps clicks to these. */
+export interface PeakView {
+  readonly index: number;
+  readonly kind: 'cross' | 'diagonal' | 'multiplet';
+  readonly f2Ppm: number;
+  readonly f1Ppm?: number;
+  readonly extent: { readonly f2FromPpm: number; readonly f2ToPpm: number; readonly f1FromPpm?: number; readonly f1ToPpm?: number };
+  readonly partner: number | null;
+}
+
+/** A pick as stored in the sidecar (labels are atom labels such as H-3). */
+export interface PickView {
+  readonly id: string;
+  readonly f2Ppm: number;
+  readonly f1Ppm?: number;
+  readonly label: readonly string[];
+  readonly kind?: 'cross' | 'diagonal' | 'multiplet';
+}
+
+export interface CouplingView {
+  readonly atoms: readonly [string, string];
+  readonly jHz: number;
+  readonly jSdHz: number;
+  readonly method: string;
+  readonly dimension: 'F2' | 'F1';
+  readonly picks: readonly string[];
+  readonly flags: readonly string[];
+}
+
+/** The sidecar as the panel shows it; `blocked` explains why edits are refused (e.g. conflict markers). */
+export interface SidecarView {
+  readonly picks: readonly PickView[];
+  readonly couplings: readonly CouplingView[];
+  readonly blocked: string | null;
+}
+
+export interface TraceView {
+  readonly f1Ppm: number;
+  readonly fromPpm: number;
+  readonly toPpm: number;
+  readonly data: Float32Array;
+  readonly fitted: Float32Array;
+  readonly residual: Float32Array;
+}
+
+export interface MeasurementView {
+  readonly peakIndex: number;
+  readonly jHz: number;
+  readonly jSdHz: number;
+  readonly passiveHz: readonly number[];
+  readonly linewidthHz: number;
+  readonly method: 'fit' | 'naive';
+  readonly dimension: 'F2' | 'F1';
+  readonly flags: readonly string[];
+  readonly notes: readonly string[];
+  readonly traces: readonly TraceView[];
+}
+
+// ---- host -> webview ------------------------------------------------------------------------
+
+/** Answer to `ready`: everything needed to draw the first frame. */
+export interface InitMessage {
+  readonly type: 'init';
+  readonly spectrum: SpectrumMeta;
+  readonly settings: ViewSettings;
+  readonly peaks: readonly PeakView[];
+  readonly sidecar: SidecarView;
+  /** Atom labels used in the workspace's structure notes and sidecars, for completion. */
+  readonly knownLabels: readonly string[];
+}
+
+/** Data for a region, decimated to at most the requested size (max |value| per cell keeps peaks). */
+export interface TileMessage {
+  readonly type: 'tile';
+  readonly inReplyTo: number;
+  readonly region: GridRegion;
+  readonly rows: number;
+  readonly cols: number;
+  /** Row-major, rows x cols. Sent as a typed array (structured clone), never as JSON numbers. */
+  readonly data: Float32Array;
+}
+
+/** The sidecar changed (an edit, undo, revert, or a change on disk such as a checkout). */
+export interface SidecarMessage {
+  readonly type: 'sidecar';
+  readonly sidecar: SidecarView;
+}
+
+export interface MeasuredMessage {
+  readonly type: 'measured';
+  readonly inReplyTo: number;
+  readonly measurement: MeasurementView;
+}
+
+export interface ProgressMessage {
+  readonly type: 'progress';
+  readonly task: string;
+  readonly done: number;
+  readonly total: number;
+}
+
+export interface ErrorMessage {
+  readonly type: 'error';
+  readonly inReplyTo?: number;
+  readonly message: string;
+}
+
+/** A command from the palette or a keybinding that the panel carries out (next peak, zoom...). */
+export interface CommandMessage {
+  readonly type: 'command';
+  readonly command: 'nextPeak' | 'previousPeak' | 'measure' | 'accept' | 'label' | 'zoomToPeak' | 'resetZoom';
+}
+
+export type ToWebview = InitMessage | TileMessage | SidecarMessage | MeasuredMessage | ProgressMessage | ErrorMessage | CommandMessage;
+
+// ---- webview -> host ------------------------------------------------------------------------
+
+export interface ReadyMessage {
+  readonly type: 'ready';
+}
+
+export interface TileRequest {
+  readonly type: 'requestTile';
+  readonly id: number;
+  readonly region: GridRegion;
+  /** The most rows and columns the view can use (screen resolution). */
+  readonly maxRows: number;
+  readonly maxCols: number;
+}
+
+export interface MeasureRequest {
+  readonly type: 'measure';
+  readonly id: number;
+  readonly peakIndex: number;
+  readonly method: 'fit' | 'naive';
+  readonly dimension: 'F2' | 'F1';
+}
+
+/** Record the measurement shown for this peak as a pick plus a coupling in the sidecar. */
+export interface AcceptRequest {
+  readonly type: 'accept';
+  readonly peakIndex: number;
+  readonly method: 'fit' | 'naive';
+  readonly dimension: 'F2' | 'F1';
+  /** [F2 atom, F1 atom] for a cross peak; may be empty until labelled. */
+  readonly labels: readonly string[];
+}
+
+export interface LabelRequest {
+  readonly type: 'label';
+  readonly pickId: string;
+  readonly labels: readonly string[];
+}
+
+export interface RemovePickRequest {
+  readonly type: 'removePick';
+  readonly pickId: string;
+}
+
+export interface MeasureAllRequest {
+  readonly type: 'measureAll';
+  readonly method: 'fit' | 'naive';
+}
+
+export interface CancelRequest {
+  readonly type: 'cancel';
+}
+
+export type FromWebview = ReadyMessage | TileRequest | MeasureRequest | AcceptRequest | LabelRequest | RemovePickRequest | MeasureAllRequest | CancelRequest;
+
+// ---- validation -----------------------------------------------------------------------------
+
+export type Parsed<T> = { readonly ok: true; readonly value: T } | { readonly ok: false; readonly error: string };
+
+type Obj = Record<string, unknown>;
+
+const isObj = (v: unknown): v is Obj => typeof v === 'object' && v !== null && !Array.isArray(v);
+const isInt = (v: unknown): v is number => typeof v === 'number' && Number.isInteger(v);
+const isNonNegInt = (v: unknown): v is number => isInt(v) && v >= 0;
+const isPosInt = (v: unknown): v is number => isInt(v) && v > 0;
+const isStr = (v: unknown): v is string => typeof v === 'string';
+const isStrList = (v: unknown): v is string[] => Array.isArray(v) && v.every(isStr);
+const isMethod = (v: unknown): v is 'fit' | 'naive' => v === 'fit' || v === 'naive';
+const isDim = (v: unknown): v is 'F2' | 'F1' => v === 'F2' || v === 'F1';
+
+function isRegion(v: unknown): v is GridRegion {
+  return isObj(v) && isNonNegInt(v.row0) && isNonNegInt(v.row1) && isNonNegInt(v.col0) && isNonNegInt(v.col1) && v.row0 <= v.row1 && v.col0 <= v.col1;
+}
+
+/** Field checks per webview message type: each returns the name of the first bad field, or null. */
+const FROM_WEBVIEW: Record<FromWebview['type'], (m: Obj) => string | null> = {
+  ready: () => null,
+  requestTile: (m) => (!isNonNegInt(m.id) ? 'id' : !isRegion(m.region) ? 'region' : !isPosInt(m.maxRows) ? 'maxRows' : !isPosInt(m.maxCols) ? 'maxCols' : null),
+  measure: (m) => (!isNonNegInt(m.id) ? 'id' : !isNonNegInt(m.peakIndex) ? 'peakIndex' : !isMethod(m.method) ? 'method' : !isDim(m.dimension) ? 'dimension' : null),
+  accept: (m) => (!isNonNegInt(m.peakIndex) ? 'peakIndex' : !isMethod(m.method) ? 'method' : !isDim(m.dimension) ? 'dimension' : !isStrList(m.labels) ? 'labels' : null),
+  label: (m) => (!isStr(m.pickId) ? 'pickId' : !isStrList(m.labels) ? 'labels' : null),
+  removePick: (m) => (!isStr(m.pickId) ? 'pickId' : null),
+  measureAll: (m) => (!isMethod(m.method) ? 'method' : null),
+  cancel: () => null,
+};
+
+/** Validates a message from the webview; the error names the type and the field at fault. */
+export function parseFromWebview(raw: unknown): Parsed<FromWebview> {
+  if (!isObj(raw) || !isStr(raw.type)) return { ok: false, error: 'message is not an object with a string "type"' };
+  const check = (FROM_WEBVIEW as Record<string, ((m: Obj) => string | null) | undefined>)[raw.type];
+  if (!check) return { ok: false, error: `unknown message type "${raw.type}"` };
+  const bad = check(raw);
+  return bad ? { ok: false, error: `message "${raw.type}": field "${bad}" is missing or invalid` } : { ok: true, value: raw as unknown as FromWebview };
+}
+
+const TO_WEBVIEW: Record<ToWebview['type'], (m: Obj) => string | null> = {
+  init: (m) => (!isObj(m.spectrum) ? 'spectrum' : !isObj(m.settings) ? 'settings' : !Array.isArray(m.peaks) ? 'peaks' : !isObj(m.sidecar) ? 'sidecar' : !isStrList(m.knownLabels) ? 'knownLabels' : null),
+  tile: (m) => (!isNonNegInt(m.inReplyTo) ? 'inReplyTo' : !isRegion(m.region) ? 'region' : !isPosInt(m.rows) ? 'rows' : !isPosInt(m.cols) ? 'cols' : !(m.data instanceof Float32Array) || m.data.length !== (m.rows as number) * (m.cols as number) ? 'data' : null),
+  sidecar: (m) => (!isObj(m.sidecar) ? 'sidecar' : null),
+  measured: (m) => (!isNonNegInt(m.inReplyTo) ? 'inReplyTo' : !isObj(m.measurement) ? 'measurement' : null),
+  progress: (m) => (!isStr(m.task) ? 'task' : !isNonNegInt(m.done) ? 'done' : !isNonNegInt(m.total) ? 'total' : null),
+  error: (m) => (!isStr(m.message) ? 'message' : null),
+  command: (m) => (!isStr(m.command) ? 'command' : null),
+};
+
+/** Validates a message from the host (the webview checks what it receives too). */
+export function parseToWebview(raw: unknown): Parsed<ToWebview> {
+  if (!isObj(raw) || !isStr(raw.type)) return { ok: false, error: 'message is not an object with a string "type"' };
+  const check = (TO_WEBVIEW as Record<string, ((m: Obj) => string | null) | undefined>)[raw.type];
+  if (!check) return { ok: false, error: `unknown message type "${raw.type}"` };
+  const bad = check(raw);
+  return bad ? { ok: false, error: `message "${raw.type}": field "${bad}" is missing or invalid` } : { ok: true, value: raw as unknown as ToWebview };
+}
