@@ -9,18 +9,50 @@ export function madSigma(values: ArrayLike<number>): number {
   const n = values.length;
   if (n === 0) return Number.NaN;
   const v = Float64Array.from(values);
-  v.sort();
   const med = median(v);
-  const dev = new Float64Array(n);
-  for (let i = 0; i < n; i++) dev[i] = Math.abs((v[i] ?? 0) - med);
-  dev.sort();
-  return MAD_TO_SIGMA * median(dev);
+  for (let i = 0; i < n; i++) v[i] = Math.abs((v[i] ?? 0) - med);
+  return MAD_TO_SIGMA * median(v);
 }
 
-function median(sorted: Float64Array): number {
-  const n = sorted.length;
-  const mid = n >> 1;
-  return n % 2 ? (sorted[mid] ?? 0) : ((sorted[mid - 1] ?? 0) + (sorted[mid] ?? 0)) / 2;
+/** Median by selection (Hoare's quickselect, expected O(n)); reorders `v`. */
+function median(v: Float64Array): number {
+  const n = v.length;
+  const hi = select(v, n >> 1);
+  if (n % 2) return hi;
+  // The lower middle is the largest value left of the upper middle after selection.
+  let lo = -Infinity;
+  for (let i = 0; i < n >> 1; i++) lo = Math.max(lo, v[i] ?? -Infinity);
+  return (lo + hi) / 2;
+}
+
+/** Puts the k-th smallest value at index k (smaller ones before it) and returns it. */
+function select(v: Float64Array, k: number): number {
+  let left = 0;
+  let right = v.length - 1;
+  while (right > left) {
+    const pivot = medianOfThree(v[left] ?? 0, v[(left + right) >> 1] ?? 0, v[right] ?? 0);
+    let i = left;
+    let j = right;
+    while (i <= j) {
+      while ((v[i] ?? 0) < pivot) i++;
+      while ((v[j] ?? 0) > pivot) j--;
+      if (i <= j) {
+        const t = v[i] ?? 0;
+        v[i] = v[j] ?? 0;
+        v[j] = t;
+        i++;
+        j--;
+      }
+    }
+    if (k <= j) right = j;
+    else if (k >= i) left = i;
+    else break;
+  }
+  return v[k] ?? Number.NaN;
+}
+
+function medianOfThree(a: number, b: number, c: number): number {
+  return Math.max(Math.min(a, b), Math.min(Math.max(a, b), c));
 }
 
 /**

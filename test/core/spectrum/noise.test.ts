@@ -30,3 +30,17 @@ describe('estimateNoise', () => {
     expect(Math.abs(estimateNoise(data) - 1)).toBeLessThan(0.05);
   });
 });
+
+describe('madSigma by selection', () => {
+  it('matches the sorted-array definition of the median on even and odd lengths with ties', () => {
+    const rng = seededRandom(4);
+    for (const n of [1, 2, 3, 10, 11, 1000, 1001]) {
+      const v = Float64Array.from({ length: n }, () => Math.round(rng.gaussian() * 3));
+      const sorted = [...v].sort((a, b) => a - b);
+      const med = n % 2 ? (sorted[n >> 1] ?? 0) : ((sorted[(n >> 1) - 1] ?? 0) + (sorted[n >> 1] ?? 0)) / 2;
+      const dev = sorted.map((x) => Math.abs(x - med)).sort((a, b) => a - b);
+      const mad = n % 2 ? (dev[n >> 1] ?? 0) : ((dev[(n >> 1) - 1] ?? 0) + (dev[n >> 1] ?? 0)) / 2;
+      expect(madSigma(v)).toBeCloseTo(1.4826 * mad, 12);
+    }
+  });
+});
