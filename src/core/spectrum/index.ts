@@ -3,3 +3,4 @@ export * from './processing';
 export * from './spectrum';
 export * from './extract';
 export * from './noise';
+export * from './decimate';
