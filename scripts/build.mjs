@@ -19,3 +19,23 @@ await build({
   logLevel: 'warning',
   banner: { js: '#!/usr/bin/env node' },
 });
+
+// The extension host bundle and its fit worker: CommonJS for VS Code's loader, `vscode` provided by the host.
+const hostEntries = [
+  { in: 'src/extension/extension.ts', out: 'extension' },
+  { in: 'src/extension/fitWorker.ts', out: 'fitWorker' },
+].filter((e) => existsSync(e.in));
+
+if (hostEntries.length > 0) {
+  await build({
+    entryPoints: hostEntries,
+    outdir: 'dist',
+    bundle: true,
+    platform: 'node',
+    format: 'cjs',
+    target: 'node20',
+    sourcemap: true,
+    logLevel: 'warning',
+    external: ['vscode'],
+  });
+}
