@@ -1,0 +1,26 @@
+/** Entry point: the spectrum editor, its commands, the sidecar diagnostics and the worker. */
+import * as path from 'node:path';
+import { Worker } from 'node:worker_threads';
+import * as vscode from 'vscode';
+import { registerCommands } from './commands';
+import type { WorkerLike } from './fitClient';
+import { SpectrumEditorProvider, VIEW_TYPE } from './spectrumEditor';
+
+export function activate(context: vscode.ExtensionContext): void {
+  const output = vscode.window.createOutputChannel('Couplet');
+  const diagnostics = vscode.languages.createDiagnosticCollection('couplet');
+  const workerFile = path.join(context.extensionPath, 'dist', 'fitWorker.js');
+  const spawn = (): WorkerLike => new Worker(workerFile);
+  const provider = new SpectrumEditorProvider(context.extensionUri, diagnostics, output, spawn);
+  context.subscriptions.push(
+    output,
+    diagnostics,
+    // No retainContextWhenHidden: the webview keeps its view state with getState/setState.
+    vscode.window.registerCustomEditorProvider(VIEW_TYPE, provider, { supportsMultipleEditorsPerDocument: true }),
+    ...registerCommands(provider, output),
+  );
+}
+
+export function deactivate(): void {
+  // Workers and watchers are disposed with their documents.
+}

@@ -1,0 +1,125 @@
+/**
+ * Request/reply client for the worker (fitWorker.ts), with cancellation. A running fit cannot be
+ * interrupted from inside (it is one synchronous call), so `cancel` terminates the worker and
+ * rejects what was pending; the next request starts a fresh worker. The spectrum sits in a
+ * SharedArrayBuffer, so a restart does not copy it again.
+ */
+import type { CrossPeakInput, Measurement, MeasureOptions } from '../core/measure';
+import { sharedCopy } from './sharedData';
+import type { FromWorker, OpenReply, SpectrumTransfer, ToWorker } from './workerMessages';
+
+/** What the client needs of a node `Worker` (tests may pass a fake). */
+export interface WorkerLike {
+  postMessage(message: ToWorker): void;
+  on(event: 'message', listener: (m: FromWorker) => void): unknown;
+  on(event: 'error', listener: (e: Error) => void): unknown;
+  on(event: 'exit', listener: (code: number) => void): unknown;
+  terminate(): unknown;
+}
+
+/** The request was cancelled (by the user or because the panel closed). */
+export class CancelledError extends Error {
+  override readonly name = 'CancelledError';
+}
+
+/** The work could not be done on this input; the message says why (the core's MeasureError or JcampError). */
+export class FitFailedError extends Error {
+  override readonly name = 'FitFailedError';
+}
+
+interface Pending {
+  resolve(m: FromWorker): void;
+  reject(e: Error): void;
+}
+
+type Request = { readonly type: 'measure'; readonly peak: CrossPeakInput; readonly options: MeasureOptions } | { readonly type: 'open'; readonly text: string; readonly fileName: string };
+
+export class FitClient {
+  private worker: WorkerLike | null = null;
+  private nextId = 1;
+  private readonly pending = new Map<number, Pending>();
+  private readonly spectrum: SpectrumTransfer | null;
+
+  /** `spectrum` is loaded into every worker this client starts (null for a client that only opens files). */
+  constructor(private readonly spawn: () => WorkerLike, spectrum: SpectrumTransfer | null) {
+    this.spectrum = spectrum && { ...spectrum, data: sharedCopy(spectrum.data) };
+  }
+
+  /** Number of requests sent and not yet answered. */
+  get inFlight(): number {
+    return this.pending.size;
+  }
+
+  async measure(peak: CrossPeakInput, options: MeasureOptions): Promise<Measurement> {
+    const r = await this.request({ type: 'measure', peak, options });
+    if (r.type !== 'measured') throw new Error(`fit worker: expected a measurement, got "${r.type}"`);
+    return r.measurement;
+  }
+
+  async open(text: string, fileName: string): Promise<OpenReply> {
+    const r = await this.request({ type: 'open', text, fileName });
+    if (r.type !== 'opened') throw new Error(`worker: expected a parsed spectrum, got "${r.type}"`);
+    return r;
+  }
+
+  /** Stops the work in progress: every pending request rejects with CancelledError. */
+  cancel(): void {
+    this.stop(new CancelledError('measurement cancelled'));
+  }
+
+  dispose(): void {
+    this.stop(new CancelledError('the spectrum panel was closed'));
+  }
+
+  private request(r: Request): Promise<FromWorker> {
+    const worker = this.ensureWorker();
+    const id = this.nextId++;
+    return new Promise<FromWorker>((resolve, reject) => {
+      this.pending.set(id, { resolve, reject });
+      worker.postMessage({ ...r, id });
+    });
+  }
+
+  private stop(reason: Error): void {
+    const w = this.worker;
+    this.worker = null;
+    if (w) void w.terminate();
+    this.rejectAll(reason);
+  }
+
+  private rejectAll(reason: Error): void {
+    const all = [...this.pending.values()];
+    this.pending.clear();
+    for (const p of all) p.reject(reason);
+  }
+
+  private ensureWorker(): WorkerLike {
+    if (this.worker) return this.worker;
+    const w = this.spawn();
+    this.worker = w;
+    // Events from a worker already replaced or stopped are ignored.
+    w.on('message', (m) => {
+      if (this.worker === w) this.settle(m);
+    });
+    w.on('error', (e) => {
+      if (this.worker !== w) return;
+      this.worker = null;
+      this.rejectAll(new Error(`the fit worker failed: ${e.message}`));
+    });
+    w.on('exit', (code) => {
+      if (this.worker !== w) return;
+      this.worker = null;
+      this.rejectAll(new Error(`the fit worker stopped unexpectedly (exit code ${code})`));
+    });
+    if (this.spectrum) w.postMessage({ type: 'load', spectrum: this.spectrum });
+    return w;
+  }
+
+  private settle(m: FromWorker): void {
+    const p = this.pending.get(m.inReplyTo);
+    if (!p) return;
+    this.pending.delete(m.inReplyTo);
+    if (m.type !== 'failed') p.resolve(m);
+    else p.reject(m.expected ? new FitFailedError(m.message) : new Error(`fit worker: ${m.message}`));
+  }
+}

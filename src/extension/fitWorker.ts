@@ -1,0 +1,50 @@
+/**
+ * The worker: parsing with peak picking, and measureCrossPeak, off the extension host's main
+ * thread. A fit is one synchronous call, so cancellation is done by the host terminating this
+ * worker (fitClient.ts); nothing here needs to poll.
+ */
+import { parentPort } from 'node:worker_threads';
+import { MeasureError, measureCrossPeak } from '../core/measure';
+import { make2D, type Spectrum, type Spectrum2D } from '../core/spectrum/spectrum';
+import { sharedCopy } from './sharedData';
+import { loadSpectrumModel } from './spectrumModel';
+import type { FromWorker, ToWorker } from './workerMessages';
+
+let spectrum: Spectrum2D | null = null;
+
+/** The same spectrum with its data moved to shared memory (the reply then shares instead of copying). */
+function shared(s: Spectrum): Spectrum {
+  return { ...s, data: sharedCopy(s.data) };
+}
+
+function failed(inReplyTo: number, e: unknown): FromWorker {
+  return { type: 'failed', inReplyTo, message: e instanceof Error ? e.message : String(e), expected: e instanceof MeasureError || (e instanceof Error && e.name === 'JcampError') };
+}
+
+export function handle(m: ToWorker): FromWorker | null {
+  switch (m.type) {
+    case 'load':
+      spectrum = make2D(m.spectrum.title, m.spectrum.data, m.spectrum.f1, m.spectrum.f2, m.spectrum.processing);
+      return null;
+    case 'open':
+      try {
+        // The hash is not needed here; the host computed it from the same bytes.
+        const model = loadSpectrumModel(m.text, m.fileName, '');
+        return { type: 'opened', inReplyTo: m.id, spectrum: shared(model.spectrum), noise: model.noise, crossPeaks: [...model.crossPeaks], multiplets: [...model.multiplets] };
+      } catch (e) {
+        return failed(m.id, e);
+      }
+    case 'measure':
+      if (spectrum === null) return { type: 'failed', inReplyTo: m.id, message: 'the fit worker has no spectrum loaded', expected: false };
+      try {
+        return { type: 'measured', inReplyTo: m.id, measurement: measureCrossPeak(spectrum, m.peak, m.options) };
+      } catch (e) {
+        return failed(m.id, e);
+      }
+  }
+}
+
+parentPort?.on('message', (m: ToWorker) => {
+  const reply = handle(m);
+  if (reply) parentPort?.postMessage(reply);
+});

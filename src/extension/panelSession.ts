@@ -1,0 +1,234 @@
+/**
+ * One open spectrum panel's logic, without VS Code: validates what the webview sends, answers it,
+ * and turns accept/label/remove into sidecar text changes. The glue (spectrumEditor.ts) supplies
+ * the ports below; tests supply fakes.
+ */
+import type { CrossPeakInput, Measurement, MeasureOptions } from '../core/measure';
+import { parseFromWebview, type FromWebview, type ToWebview, type ViewSettings } from '../protocol';
+import { CancelledError, FitFailedError } from './fitClient';
+import { couplingValues, measurementView } from './measurementView';
+import { acceptText, labelText, removePickText, type CouplingValues } from './sidecarActions';
+import { sidecarState, type SidecarState } from './sidecarState';
+import { gridSize, peakViews, spectrumMeta, tileFor, type SpectrumModel } from './spectrumModel';
+
+/** The sidecar document: its text now, and a way to replace it as one undoable change. */
+export interface SidecarStore {
+  /** e.g. `cosy.jdx.couplet.yaml` (used in messages). */
+  readonly fileName: string;
+  /** Current text; null while the file does not exist. */
+  text(): string | null;
+  /** Replaces the whole text by `after` (a minimal edit is derived); resolves false if the editor refused. */
+  write(after: string, label: string): Promise<boolean>;
+}
+
+export interface Measurer {
+  measure(peak: CrossPeakInput, options: MeasureOptions): Promise<Measurement>;
+  cancel(): void;
+}
+
+export interface CancelToken {
+  readonly cancelled: boolean;
+  onCancel(listener: () => void): void;
+}
+
+export interface SessionPorts {
+  post(message: ToWebview): void;
+  settings(): ViewSettings;
+  knownLabels(): Promise<readonly string[]>;
+  /** For the output channel: invalid messages and other things a developer wants to see. */
+  log(message: string): void;
+  /** A notification the user sees (e.g. why an edit was refused). */
+  notify(message: string): void;
+  /** Batch work with progress and a cancel button. */
+  withProgress<T>(title: string, work: (report: (done: number, total: number) => void, token: CancelToken) => Promise<T>): Promise<T>;
+}
+
+type Method = 'fit' | 'naive';
+type Dim = 'F2' | 'F1';
+const key = (peak: number, method: Method, dim: Dim): string => `${peak}|${method}|${dim}`;
+
+export interface MeasureAllSummary {
+  readonly measured: number;
+  readonly failed: readonly string[];
+  readonly cancelled: boolean;
+}
+
+export class PanelSession {
+  /** Measurements shown or made in this panel, so accept records exactly what the user saw. */
+  private readonly measured = new Map<string, Measurement>();
+  /** Accepted before the pick had two labels: becomes a coupling when it is labelled. */
+  private readonly pending = new Map<string, CouplingValues>();
+
+  constructor(readonly model: SpectrumModel, private readonly store: SidecarStore, private readonly measurer: Measurer, private readonly ports: SessionPorts) {}
+
+  state(): SidecarState {
+    return sidecarState(this.store.text(), this.store.fileName, this.model.sha256);
+  }
+
+  /** Call when the sidecar text changed for any reason (edit, undo, revert, checkout). */
+  sidecarChanged(): void {
+    this.ports.post({ type: 'sidecar', sidecar: this.state().view });
+  }
+
+  /** Validates and handles one raw message; invalid ones are logged and dropped. */
+  async receive(raw: unknown): Promise<void> {
+    const parsed = parseFromWebview(raw);
+    if (!parsed.ok) {
+      this.ports.log(`ignored a message from the ${this.model.fileName} panel: ${parsed.error}`);
+      return;
+    }
+    await this.handle(parsed.value);
+  }
+
+  private async handle(m: FromWebview): Promise<void> {
+    switch (m.type) {
+      case 'ready': return this.init();
+      case 'requestTile': return this.tile(m.id, m);
+      case 'measure': return this.measureOne(m.id, m.peakIndex, m.method, m.dimension);
+      case 'accept': await this.accept(m.peakIndex, m.method, m.dimension, m.labels); return;
+      case 'label': await this.edit(`Label ${m.pickId}`, (t) => labelText(this.existing(t), this.store.fileName, m.pickId, m.labels, this.pending.get(m.pickId))); return;
+      case 'removePick': await this.edit(`Remove ${m.pickId}`, (t) => removePickText(this.existing(t), this.store.fileName, m.pickId)); return;
+      case 'measureAll': await this.measureAll(m.method); return;
+      case 'cancel': this.measurer.cancel(); return;
+    }
+  }
+
+  private async init(): Promise<void> {
+    const knownLabels = await this.ports.knownLabels();
+    this.ports.post({
+      type: 'init', spectrum: spectrumMeta(this.model), settings: this.ports.settings(),
+      peaks: peakViews(this.model), sidecar: this.state().view, knownLabels: [...knownLabels],
+    });
+  }
+
+  private tile(id: number, r: { region: { row0: number; row1: number; col0: number; col1: number }; maxRows: number; maxCols: number }): void {
+    const { rows, cols } = gridSize(this.model.spectrum);
+    const g = r.region;
+    if (g.row1 >= rows || g.col1 >= cols) {
+      this.ports.post({ type: 'error', inReplyTo: id, message: `tile rows ${g.row0}..${g.row1}, cols ${g.col0}..${g.col1} are outside the ${rows} x ${cols} grid of ${this.model.fileName}` });
+      return;
+    }
+    this.ports.post(tileFor(this.model, id, g, r.maxRows, r.maxCols));
+  }
+
+  /** The cross peak a request names, or a message saying why it cannot be measured. */
+  private crossPeak(index: number): CrossPeakInput | string {
+    if (this.model.spectrum.dims !== 2) return `${this.model.fileName} is a 1D spectrum: J is measured at DQF-COSY cross peaks; the multiplet can still be picked and labelled`;
+    const p = this.model.crossPeaks[index];
+    if (!p) return `${this.model.fileName} has no peak ${index} (${this.model.crossPeaks.length} peaks picked)`;
+    if (p.kind !== 'cross') return `peak ${index} at F2 ${p.f2Ppm.toFixed(4)} / F1 ${p.f1Ppm.toFixed(4)} ppm is a diagonal peak; J is measured at cross peaks`;
+    return p;
+  }
+
+  /** Measures (or reuses this panel's earlier measurement of the same peak, method and dimension). */
+  async measurement(index: number, method: Method, dimension: Dim): Promise<Measurement> {
+    const k = key(index, method, dimension);
+    const known = this.measured.get(k);
+    if (known) return known;
+    const peak = this.crossPeak(index);
+    if (typeof peak === 'string') throw new FitFailedError(peak);
+    const m = await this.measurer.measure(peak, { method, dimension, noise: this.model.noise });
+    this.measured.set(k, m);
+    return m;
+  }
+
+  private async measureOne(id: number, index: number, method: Method, dimension: Dim): Promise<void> {
+    try {
+      const m = await this.measurement(index, method, dimension);
+      this.ports.post({ type: 'measured', inReplyTo: id, measurement: measurementView(index, m) });
+    } catch (e) {
+      this.ports.post({ type: 'error', inReplyTo: id, message: describe(e) });
+    }
+  }
+
+  /** Records the pick (and the coupling, once labelled); returns false when nothing was written. */
+  async accept(index: number, method: Method, dimension: Dim, labels: readonly string[]): Promise<boolean> {
+    const s = this.model.spectrum;
+    let values: CouplingValues | undefined;
+    let at: { f2Ppm: number; f1Ppm?: number; kind: 'cross' | 'diagonal' | 'multiplet' };
+    if (s.dims === 2) {
+      const p = this.model.crossPeaks[index];
+      if (!p) return this.refuse(`${this.model.fileName} has no peak ${index}`);
+      at = { f2Ppm: p.f2Ppm, f1Ppm: p.f1Ppm, kind: p.kind };
+      if (p.kind === 'cross') {
+        try {
+          values = couplingValues(await this.measurement(index, method, dimension));
+        } catch (e) {
+          return this.refuse(`not accepted: ${describe(e)}`);
+        }
+      }
+    } else {
+      const p = this.model.multiplets[index];
+      if (!p) return this.refuse(`${this.model.fileName} has no multiplet ${index}`);
+      at = { f2Ppm: p.ppm, kind: 'multiplet' };
+    }
+    let pickId = '';
+    let coupled = false;
+    const ok = await this.edit('Accept measurement', (t) => {
+      const r = acceptText(t, this.store.fileName, { dataFileName: this.model.fileName, sha256: this.model.sha256, ...at, labels, ...(values && { values }) });
+      pickId = r.pickId;
+      coupled = r.coupled;
+      return r.text;
+    });
+    if (ok && values && !coupled) this.pending.set(pickId, values);
+    return ok;
+  }
+
+  /** Every cross peak, one after the other in the worker, with progress and cancel. */
+  async measureAll(method: Method): Promise<MeasureAllSummary> {
+    const dimension: Dim = 'F2';
+    const indices = this.model.crossPeaks.flatMap((p, i) => (p.kind === 'cross' ? [i] : []));
+    const failed: string[] = [];
+    let measured = 0;
+    const cancelled = await this.ports.withProgress(`Measuring ${indices.length} cross peaks in ${this.model.fileName}`, async (report, token) => {
+      token.onCancel(() => this.measurer.cancel());
+      for (const [n, i] of indices.entries()) {
+        if (token.cancelled) return true;
+        report(n, indices.length);
+        this.ports.post({ type: 'progress', task: 'measureAll', done: n, total: indices.length });
+        try {
+          await this.measurement(i, method, dimension);
+          measured++;
+        } catch (e) {
+          if (e instanceof CancelledError) return true;
+          failed.push(`peak ${i}: ${describe(e)}`);
+        }
+      }
+      this.ports.post({ type: 'progress', task: 'measureAll', done: indices.length, total: indices.length });
+      return false;
+    });
+    return { measured, failed, cancelled };
+  }
+
+  private existing(t: string | null): string {
+    if (t === null) throw new Error(`${this.store.fileName} does not exist yet; accept a measurement first`);
+    return t;
+  }
+
+  /** Applies one text change, or explains (notification) why the sidecar is not written. */
+  private async edit(label: string, change: (text: string | null) => string): Promise<boolean> {
+    const state = this.state();
+    if (state.view.blocked !== null) return this.refuse(state.view.blocked);
+    const before = this.store.text();
+    let after: string;
+    try {
+      after = change(before);
+    } catch (e) {
+      return this.refuse(describe(e));
+    }
+    if (after === before) return true;
+    const ok = await this.store.write(after, label);
+    if (!ok) return this.refuse(`VS Code did not apply the change to ${this.store.fileName}`);
+    return true;
+  }
+
+  private refuse(message: string): false {
+    this.ports.notify(message);
+    this.ports.post({ type: 'error', message });
+    return false;
+  }
+}
+
+function describe(e: unknown): string {
+  return e instanceof Error ? e.message : String(e);
+}

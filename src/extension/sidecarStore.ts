@@ -1,0 +1,117 @@
+/**
+ * The sidecar `<data>.couplet.yaml` as a VS Code TextDocument: the panel edits it only through
+ * WorkspaceEdit (so dirty state, save, hot exit and the text editor's own undo work as usual) and
+ * follows every change of it: edits, undo, revert, and changes on disk such as a git checkout.
+ */
+import * as vscode from 'vscode';
+import { lineDiffEdits } from '../core/sidecar';
+import type { SidecarStore } from './panelSession';
+
+export class VsSidecarStore implements SidecarStore, vscode.Disposable {
+  readonly fileName: string;
+  private cached: string | null = null;
+  private readonly subscriptions: vscode.Disposable[] = [];
+  private readonly changed = new vscode.EventEmitter<void>();
+  /** Fires after the text changed, for whatever reason. */
+  readonly onDidChange = this.changed.event;
+
+  private constructor(readonly uri: vscode.Uri) {
+    this.fileName = uri.path.split('/').pop() ?? uri.path;
+    const same = (u: vscode.Uri): boolean => u.toString() === uri.toString();
+    this.subscriptions.push(
+      this.changed,
+      vscode.workspace.onDidChangeTextDocument((e) => {
+        if (same(e.document.uri)) this.update(e.document.getText());
+      }),
+      vscode.workspace.onDidOpenTextDocument((d) => {
+        if (same(d.uri)) this.update(d.getText());
+      }),
+    );
+    // When no TextDocument is open for it, VS Code does not read the file: watch the disk ourselves.
+    const folder = vscode.Uri.joinPath(uri, '..');
+    const watcher = vscode.workspace.createFileSystemWatcher(new vscode.RelativePattern(folder, this.fileName));
+    const fromDisk = (): void => void this.readDisk();
+    this.subscriptions.push(watcher, watcher.onDidCreate(fromDisk), watcher.onDidChange(fromDisk), watcher.onDidDelete(fromDisk));
+  }
+
+  static async open(uri: vscode.Uri): Promise<VsSidecarStore> {
+    const store = new VsSidecarStore(uri);
+    await store.readDisk();
+    return store;
+  }
+
+  text(): string | null {
+    return this.cached;
+  }
+
+  private openDocument(): vscode.TextDocument | undefined {
+    return vscode.workspace.textDocuments.find((d) => d.uri.toString() === this.uri.toString());
+  }
+
+  private update(text: string | null): void {
+    if (text === this.cached) return;
+    this.cached = text;
+    this.changed.fire();
+  }
+
+  /** The open document wins (it may hold unsaved edits); otherwise the file on disk, or null if there is none. */
+  async readDisk(): Promise<void> {
+    const doc = this.openDocument();
+    if (doc) return this.update(doc.getText());
+    try {
+      this.update(new TextDecoder('utf-8').decode(await vscode.workspace.fs.readFile(this.uri)));
+    } catch (e) {
+      if (e instanceof vscode.FileSystemError && e.code === 'FileNotFound') this.update(null);
+      else throw e;
+    }
+  }
+
+  async write(after: string, label: string): Promise<boolean> {
+    const edit = new vscode.WorkspaceEdit();
+    const meta: vscode.WorkspaceEditEntryMetadata = { label, needsConfirmation: false };
+    if (this.cached === null) {
+      // First pick: the file is created and filled in one undoable edit.
+      edit.createFile(this.uri, { ignoreIfExists: true }, meta);
+      edit.insert(this.uri, new vscode.Position(0, 0), after, meta);
+    } else {
+      const doc = await vscode.workspace.openTextDocument(this.uri);
+      const before = doc.getText();
+      // The action was computed on `cached`; if the document moved on meanwhile, do not guess.
+      if (before !== this.cached) return false;
+      for (const e of lineDiffEdits(before, after)) {
+        edit.replace(this.uri, new vscode.Range(doc.positionAt(e.offset), doc.positionAt(e.offset + e.length)), e.text, meta);
+      }
+    }
+    const ok = await vscode.workspace.applyEdit(edit);
+    if (ok) {
+      const doc = await vscode.workspace.openTextDocument(this.uri);
+      this.update(doc.getText());
+    }
+    return ok;
+  }
+
+  /** Saves the document (nothing to do when it is not open or not dirty). */
+  async save(): Promise<boolean> {
+    const doc = this.openDocument();
+    return doc ? doc.save() : true;
+  }
+
+  /** Back to the text on disk: the document is replaced by it and saved, so it is no longer dirty. */
+  async revert(): Promise<void> {
+    const doc = this.openDocument();
+    if (!doc || !doc.isDirty) return this.readDisk();
+    let disk = '';
+    try {
+      disk = new TextDecoder('utf-8').decode(await vscode.workspace.fs.readFile(this.uri));
+    } catch (e) {
+      if (!(e instanceof vscode.FileSystemError && e.code === 'FileNotFound')) throw e;
+    }
+    const edit = new vscode.WorkspaceEdit();
+    edit.replace(this.uri, new vscode.Range(doc.positionAt(0), doc.positionAt(doc.getText().length)), disk);
+    if (await vscode.workspace.applyEdit(edit)) await doc.save();
+  }
+
+  dispose(): void {
+    for (const s of this.subscriptions) s.dispose();
+  }
+}

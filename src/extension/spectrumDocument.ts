@@ -1,0 +1,57 @@
+/**
+ * A spectrum opened in the Couplet editor: the parsed data and peaks (read once; the data file is
+ * never written), its sidecar store, and the fit worker. Shared by every panel showing the file.
+ */
+import { createHash } from 'node:crypto';
+import * as vscode from 'vscode';
+import { sidecarNameFor } from '../core/sidecar';
+import { FitClient, type WorkerLike } from './fitClient';
+import { VsSidecarStore } from './sidecarStore';
+import type { SpectrumModel } from './spectrumModel';
+
+export class SpectrumDocument implements vscode.CustomDocument {
+  private constructor(
+    readonly uri: vscode.Uri,
+    readonly model: SpectrumModel | null,
+    /** Why the file could not be read (file:line), when `model` is null. */
+    readonly loadError: string | null,
+    readonly store: VsSidecarStore,
+    /** Fits for 2D spectra; null for 1D. */
+    readonly fits: FitClient | null,
+  ) {}
+
+  static async open(uri: vscode.Uri, spawn: () => WorkerLike): Promise<SpectrumDocument> {
+    const fileName = uri.path.split('/').pop() ?? uri.path;
+    const store = await VsSidecarStore.open(vscode.Uri.joinPath(uri, '..', sidecarNameFor(fileName)));
+    const bytes = await vscode.workspace.fs.readFile(uri);
+    // Hashing here, not in core: core does no I/O and no hashing (design.md, sidecar).
+    const sha256 = createHash('sha256').update(bytes).digest('hex');
+    // JCAMP-DX is ASCII; latin1 maps each byte to one character, so line numbers stay right in damaged files.
+    const text = Buffer.from(bytes).toString('latin1');
+    const loader = new FitClient(spawn, null);
+    try {
+      const r = await loader.open(text, fileName);
+      const model: SpectrumModel = { fileName, sha256, spectrum: r.spectrum, noise: r.noise, crossPeaks: r.crossPeaks, multiplets: r.multiplets };
+      const s = r.spectrum;
+      const fits = s.dims === 2 ? new FitClient(spawn, { title: s.title, data: s.data, f1: s.f1, f2: s.f2, ...(s.processing && { processing: s.processing }) }) : null;
+      return new SpectrumDocument(uri, model, null, store, fits);
+    } catch (e) {
+      const message = e instanceof Error ? e.message : String(e);
+      return new SpectrumDocument(uri, null, message.includes(fileName) ? message : `${fileName}: ${message}`, store, null);
+    } finally {
+      loader.dispose();
+    }
+  }
+
+  private readonly disposeListeners: (() => void)[] = [];
+
+  onDispose(listener: () => void): void {
+    this.disposeListeners.push(listener);
+  }
+
+  dispose(): void {
+    for (const f of this.disposeListeners) f();
+    this.fits?.dispose();
+    this.store.dispose();
+  }
+}

@@ -1,0 +1,66 @@
+/**
+ * Messages between the extension host and the fit worker (worker_threads). Same request/reply
+ * convention as src/protocol.ts: requests carry `id`, replies `inReplyTo`.
+ */
+import type { CrossPeakInput, Measurement, MeasureOptions } from '../core/measure';
+import type { CrossPeak, Multiplet1D } from '../core/peaks';
+import type { Axis } from '../core/spectrum/axis';
+import type { Spectrum, Spectrum2D } from '../core/spectrum/spectrum';
+
+/** The spectrum as the worker receives it; `data` is best a view on a SharedArrayBuffer (no copy per worker). */
+export interface SpectrumTransfer {
+  readonly title: string;
+  readonly data: Float64Array;
+  readonly f1: Axis;
+  readonly f2: Axis;
+  readonly processing?: Spectrum2D['processing'];
+}
+
+/** Sent once after the worker starts; no reply. */
+export interface LoadMessage {
+  readonly type: 'load';
+  readonly spectrum: SpectrumTransfer;
+}
+
+export interface FitRequest {
+  readonly type: 'measure';
+  readonly id: number;
+  readonly peak: CrossPeakInput;
+  readonly options: MeasureOptions;
+}
+
+/** Parse a JCAMP-DX text and pick its peaks (about a second for a 512 x 2048 DQF-COSY). */
+export interface OpenRequest {
+  readonly type: 'open';
+  readonly id: number;
+  readonly text: string;
+  readonly fileName: string;
+}
+
+export type ToWorker = LoadMessage | FitRequest | OpenRequest;
+
+export interface FitReply {
+  readonly type: 'measured';
+  readonly inReplyTo: number;
+  readonly measurement: Measurement;
+}
+
+/** `expected` is true for a MeasureError (nothing to measure there), false for a bug. */
+export interface FitFailed {
+  readonly type: 'failed';
+  readonly inReplyTo: number;
+  readonly message: string;
+  readonly expected: boolean;
+}
+
+/** The parsed spectrum (its data in a SharedArrayBuffer, so the reply does not copy it) and its peaks. */
+export interface OpenReply {
+  readonly type: 'opened';
+  readonly inReplyTo: number;
+  readonly spectrum: Spectrum;
+  readonly noise: number;
+  readonly crossPeaks: CrossPeak[];
+  readonly multiplets: Multiplet1D[];
+}
+
+export type FromWorker = FitReply | FitFailed | OpenReply;
