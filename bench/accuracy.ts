@@ -3,7 +3,7 @@
  * bench/accuracy.md (path given as the first argument, default bench/accuracy.md).
  */
 import { writeFileSync } from 'node:fs';
-import { FULL_GRID, markdownTable, runAccuracyStudy, studyGrid } from './accuracyStudy';
+import { criteriaTable, FULL_GRID, markdownTable, runAccuracyStudy, studyGrid } from './accuracyStudy';
 
 export function writeAccuracyReport(outPath = 'bench/accuracy.md'): void {
   const cases = [...studyGrid(FULL_GRID, 1), ...studyGrid(FULL_GRID, 100_001)];
@@ -23,6 +23,12 @@ export function writeAccuracyReport(outPath = 'bench/accuracy.md'): void {
     'noise-free cross-peak region over the processed noise sigma; error = measured - true J; coverage = share of cases with',
     '|error| <= 2 x reported sigma. "1.645 x median sigma" is the P90 |error| an unbiased estimator with the reported sigma would show:',
     'where the fit P90 is close to it, the error is set by the information in the data, not by the method.',
+    '',
+    '## Acceptance criteria by SNR',
+    '',
+    criteriaTable(results),
+    '',
+    '## All groups',
     '',
     markdownTable(groups),
     '',

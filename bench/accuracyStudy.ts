@@ -174,6 +174,9 @@ export function runAccuracyStudy(cases: StudyCase[] = studyGrid(FULL_GRID)): { r
     groups.push(summarise(`J < 0.5 w, SNR ${snr}`, unresolved.filter((r) => r.snr === snr)));
   }
   groups.push(summarise('J < 0.5 w, no passive coupling', unresolved.filter((r) => r.passiveOverW === 0)));
+  for (const snr of [...new Set(results.map((r) => r.snr))]) {
+    groups.push(summarise(`J < 0.5 w, no passive coupling, SNR ${snr}`, unresolved.filter((r) => r.passiveOverW === 0 && r.snr === snr)));
+  }
   const by = <K extends keyof StudyCase>(key: K, name: string): void => {
     for (const v of [...new Set(results.map((r) => r[key]))]) groups.push(summarise(`${name} = ${v}`, results.filter((r) => r[key] === v)));
   };
@@ -193,6 +196,27 @@ export function markdownTable(groups: GroupSummary[]): string {
   ];
   for (const g of groups) {
     lines.push(`| ${g.label} | ${g.n} | ${g.failed} | ${f(g.fitP90)} | ${f(g.naiveP90)} | ${f(g.medianSd)} | ${f(g.efficientP90)} | ${f(g.coverage * 100, 1)} % |`);
+  }
+  return lines.join('\n');
+}
+
+/** The issue's acceptance criteria, checked separately at each SNR of the results. */
+export function criteriaTable(results: CaseResult[]): string {
+  const yes = (ok: boolean): string => (ok ? 'yes' : 'NO');
+  const f = (x: number): string => (Number.isFinite(x) ? x.toFixed(3) : 'n/a');
+  const lines = [
+    '| SNR | P90 J >= 0.5 w (<= 0.15 Hz) | P90 J < 0.5 w (<= 0.5 Hz) | naive / fit P90, J < 0.5 w, no passive (>= 5) | coverage at 2 sigma (>= 90 %) |',
+    '|---|---|---|---|---|',
+  ];
+  for (const snr of [...new Set(results.map((r) => r.snr))].sort((a, b) => a - b)) {
+    const at = results.filter((r) => r.snr === snr);
+    const res = summarise('', at.filter((r) => r.jOverW >= 0.5));
+    const unr = summarise('', at.filter((r) => r.jOverW < 0.5));
+    const plain = summarise('', at.filter((r) => r.jOverW < 0.5 && r.passiveOverW === 0));
+    const ratio = plain.naiveP90 / plain.fitP90;
+    const cov = summarise('', at).coverage;
+    lines.push(`| ${snr} | ${f(res.fitP90)} ${yes(res.fitP90 <= 0.15)} | ${f(unr.fitP90)} ${yes(unr.fitP90 <= 0.5)} | ` +
+      `${f(ratio)} ${yes(ratio >= 5)} | ${(cov * 100).toFixed(1)} % ${yes(cov >= 0.9)} |`);
   }
   return lines.join('\n');
 }

@@ -7,8 +7,10 @@ import type { LineModel } from './lineshape';
  * line shape, phase-rotated by phi: Re(e^{i phi} X).
  *
  * Parameter vector (internal, unbounded): [centre Hz, J Hz, width, phi rad, (mix), Jp_1..Jp_p].
- * width: natural Lorentzian width w (Hz) for the processed line; log of the FWHM for the
- * pseudo-Voigt line (keeps it positive). mix: logit of the Gaussian fraction (keeps it in 0..1).
+ * width: natural Lorentzian width w (Hz) for the processed line, left unbounded: the window and
+ * truncation keep the line finite even for small negative w, and a bound at 0 would bias J and
+ * break the covariance when the true width is near 0 (window-dominated lines); log of the FWHM
+ * for the pseudo-Voigt line (keeps it positive). mix: logit of the Gaussian fraction (keeps it in 0..1).
  * The sign of J or Jp only flips or keeps the pattern, so they are left free and reported as |J|.
  */
 export interface ModelSpec {
