@@ -42,6 +42,11 @@ export function qualityFlags(q: FlagInput): { flags: QualityFlag[]; notes: strin
       'largely cancel, so the value rests on the line-shape model; treat it as an estimate and check it ' +
       'against the 1D multiplet or the symmetric cross peak before using it for an assignment.');
   }
+  if (q.jSdHz > 0.5 * q.jHz) {
+    // No flag of its own (the flag set is fixed), but the chemist must not read a number here.
+    notes.push(`J is not determined by these data: its standard deviation (${q.jSdHz.toFixed(2)} Hz) exceeds half its value; ` +
+      'report it as not measured, or measure at higher signal-to-noise or in the symmetric cross peak.');
+  }
   const coarse = q.hzPerPoint > q.linewidthHz / L.pointsPerLinewidth;
   const tooFine = q.lineshapeAssumed && q.jSdHz < L.sdPerPoint * q.hzPerPoint;
   if (coarse || tooFine) {

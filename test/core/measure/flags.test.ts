@@ -33,4 +33,9 @@ describe('qualityFlags', () => {
     const q = qualityFlags({ ...ok, jHz: 1, shiftDiffHz: 5, chi2Reduced: 9 });
     expect(q.notes.length).toBe(q.flags.length);
   });
+  it('says in a note when sigma exceeds half of J (the value is not determined), without a new flag', () => {
+    const q = qualityFlags({ ...ok, jHz: 1, jSdHz: 0.6 });
+    expect(q.notes.join(' ')).toMatch(/not determined/);
+    expect(q.flags).toEqual(['unresolved']);
+  });
 });
