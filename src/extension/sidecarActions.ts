@@ -45,8 +45,9 @@ export function cleanLabels(labels: readonly string[]): string[] {
 }
 
 function readable(text: string, fileName: string): Sidecar {
-  const { sidecar } = parseSidecar(text, fileName);
-  if (sidecar === null) throw new Error(`not editing ${fileName}: it cannot be read as a sidecar`);
+  const { sidecar, diagnostics } = parseSidecar(text, fileName);
+  const first = diagnostics.find((d) => d.severity === 'error');
+  if (sidecar === null || first) throw new Error(`not editing ${fileName}: ${first?.message ?? 'it cannot be read as a sidecar'}`);
   return sidecar;
 }
 

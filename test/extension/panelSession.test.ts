@@ -1,0 +1,191 @@
+/**
+ * The host's message handling with a fake webview (records what is posted), a fake sidecar
+ * document (holds text) and an in-process measurer, on the simulated spectrum of fixture.ts.
+ */
+import { beforeEach, describe, expect, it } from 'vitest';
+import { measureCrossPeak } from '../../src/core/measure';
+import { make1D } from '../../src/core/spectrum/spectrum';
+import { makeAxis } from '../../src/core/spectrum/axis';
+import { parseToWebview, type ToWebview } from '../../src/protocol';
+import { PanelSession, type Measurer, type SessionPorts, type SidecarStore } from '../../src/extension/panelSession';
+import { readSettings } from '../../src/extension/settings';
+import { testModel } from './fixture';
+
+interface Harness {
+  session: PanelSession;
+  posted: ToWebview[];
+  logs: string[];
+  notes: string[];
+  store: SidecarStore & { value: string | null; writes: number };
+  measured: number;
+}
+
+function harness(initial: string | null = null, model = testModel()): Harness {
+  const h = { posted: [] as ToWebview[], logs: [] as string[], notes: [] as string[], measured: 0 } as Harness;
+  const store = {
+    fileName: 'cosy.jdx.couplet.yaml', value: initial, writes: 0,
+    text: () => store.value,
+    write: async (after: string) => ((store.value = after), store.writes++, true),
+  };
+  h.store = store;
+  const s2 = model.spectrum;
+  const measurer: Measurer = {
+    measure: async (peak, options) => {
+      h.measured++;
+      if (s2.dims !== 2) throw new Error('1D');
+      return measureCrossPeak(s2, peak, options);
+    },
+    cancel: () => undefined,
+  };
+  const ports: SessionPorts = {
+    post: (m) => void h.posted.push(m),
+    settings: () => readSettings(() => undefined),
+    knownLabels: async () => ['H-1', 'H-2'],
+    log: (m) => void h.logs.push(m),
+    notify: (m) => void h.notes.push(m),
+    withProgress: (_title, work) => work(() => undefined, { cancelled: false, onCancel: () => undefined }),
+  };
+  h.session = new PanelSession(model, store, measurer, ports);
+  return h;
+}
+
+const last = (h: Harness): ToWebview | undefined => h.posted[h.posted.length - 1];
+
+describe('PanelSession', () => {
+  let h: Harness;
+  beforeEach(() => {
+    h = harness();
+  });
+
+  it('answers ready with init: spectrum axes, settings, peaks, sidecar and known labels', async () => {
+    await h.session.receive({ type: 'ready' });
+    const m = last(h);
+    expect(m && parseToWebview(m).ok).toBe(true);
+    if (m?.type !== 'init') throw new Error(`expected init, got ${m?.type}`);
+    const s = testModel().spectrum;
+    if (s.dims !== 2) throw new Error('fixture is 2D');
+    expect(m.spectrum).toMatchObject({ fileName: 'cosy.jdx', dims: 2, f2: { points: s.f2.points, firstHz: s.f2.firstHz, observeMhz: 600 }, f1: { points: s.f1.points } });
+    expect(m.spectrum.noise).toBe(testModel().noise);
+    expect(m.spectrum.max).toBe(s.data.reduce((a, b) => Math.max(a, b), -Infinity));
+    expect(m.peaks.map((p) => p.kind)).toEqual(['diagonal', 'cross', 'cross', 'diagonal']);
+    expect(m.peaks[1]?.partner).toBe(2);
+    expect(m.settings).toEqual(readSettings(() => undefined));
+    expect(m.sidecar).toEqual({ picks: [], couplings: [], blocked: null });
+    expect(m.knownLabels).toEqual(['H-1', 'H-2']);
+  });
+
+  it('ignores and logs a message that fails validation, posting nothing', async () => {
+    await h.session.receive({ type: 'measure', id: 1, peakIndex: -1, method: 'fit', dimension: 'F2' });
+    await h.session.receive({ type: 'eraseAll' });
+    await h.session.receive('ready');
+    expect(h.posted).toEqual([]);
+    expect(h.logs).toEqual([
+      'ignored a message from the cosy.jdx panel: message "measure": field "peakIndex" is missing or invalid',
+      'ignored a message from the cosy.jdx panel: unknown message type "eraseAll"',
+      'ignored a message from the cosy.jdx panel: message is not an object with a string "type"',
+    ]);
+  });
+
+  it('answers requestTile with a Float32Array no larger than asked, and an error outside the grid', async () => {
+    await h.session.receive({ type: 'requestTile', id: 7, region: { row0: 0, row1: 127, col0: 0, col1: 1023 }, maxRows: 64, maxCols: 300 });
+    const t = last(h);
+    if (t?.type !== 'tile') throw new Error(`expected tile, got ${t?.type}`);
+    expect(t.inReplyTo).toBe(7);
+    expect(t.data).toBeInstanceOf(Float32Array);
+    expect(t.rows).toBeLessThanOrEqual(64);
+    expect(t.cols).toBeLessThanOrEqual(300);
+    expect(t.data.length).toBe(t.rows * t.cols);
+    await h.session.receive({ type: 'requestTile', id: 8, region: { row0: 0, row1: 128, col0: 0, col1: 10 }, maxRows: 4, maxCols: 4 });
+    expect(last(h)).toEqual({ type: 'error', inReplyTo: 8, message: 'tile rows 0..128, cols 0..10 are outside the 128 x 1024 grid of cosy.jdx' });
+  });
+
+  it('answers measure with the measurement (J near the simulated 7.5 Hz) and typed-array traces', async () => {
+    await h.session.receive({ type: 'measure', id: 3, peakIndex: 1, method: 'fit', dimension: 'F2' });
+    const m = last(h);
+    if (m?.type !== 'measured') throw new Error(`expected measured, got ${m?.type}: ${JSON.stringify(m)}`);
+    expect(m.inReplyTo).toBe(3);
+    // fixture.ts simulates J = 7.5 Hz at SNR 300; the fit's own sigma is a few 0.01 Hz.
+    expect(Math.abs(m.measurement.jHz - 7.5)).toBeLessThan(0.3);
+    expect(m.measurement.traces[0]?.data).toBeInstanceOf(Float32Array);
+    expect(parseToWebview(m).ok).toBe(true);
+  });
+
+  it('refuses to measure a diagonal peak, saying why', async () => {
+    await h.session.receive({ type: 'measure', id: 4, peakIndex: 0, method: 'fit', dimension: 'F2' });
+    expect(last(h)).toMatchObject({ type: 'error', inReplyTo: 4, message: expect.stringMatching(/^peak 0 at F2 4\.\d{4} \/ F1 4\.\d{4} ppm is a diagonal peak/) });
+  });
+
+  it('accept after measure writes the pick and the coupling with the shown values, measuring once', async () => {
+    await h.session.receive({ type: 'measure', id: 5, peakIndex: 1, method: 'fit', dimension: 'F2' });
+    const shown = last(h);
+    if (shown?.type !== 'measured') throw new Error('expected measured');
+    await h.session.receive({ type: 'accept', peakIndex: 1, method: 'fit', dimension: 'F2', labels: ['H-1', 'H-2'] });
+    expect(h.measured).toBe(1);
+    expect(h.store.writes).toBe(1);
+    const text = h.store.value ?? '';
+    const p = testModel().crossPeaks[1];
+    expect(text).toContain(`    f2_ppm: ${p?.f2Ppm.toFixed(4)}\n    f1_ppm: ${p?.f1Ppm.toFixed(4)}\n    label: [H-1, H-2]\n    kind: cross\n`);
+    expect(text).toContain(`  - atoms: [H-1, H-2]\n    j_hz: ${shown.measurement.jHz.toFixed(2)}\n    j_sd_hz: ${shown.measurement.jSdHz.toFixed(2)}\n    method: fit\n    dimension: F2\n`);
+  });
+
+  it('posts the new sidecar view when the document changes (edit, undo or checkout)', async () => {
+    await h.session.receive({ type: 'accept', peakIndex: 1, method: 'fit', dimension: 'F2', labels: ['H-1', 'H-2'] });
+    h.session.sidecarChanged();
+    const m = last(h);
+    if (m?.type !== 'sidecar') throw new Error('expected sidecar');
+    expect(m.sidecar.picks.map((p) => p.label)).toEqual([['H-1', 'H-2']]);
+    expect(m.sidecar.couplings).toHaveLength(1);
+    h.store.value = null;
+    h.session.sidecarChanged();
+    expect(last(h)).toEqual({ type: 'sidecar', sidecar: { picks: [], couplings: [], blocked: null } });
+  });
+
+  it('does not write a sidecar whose data hash does not match the spectrum, and says where', async () => {
+    const other = `schema: couplet-sidecar/1\ndata:\n  file: cosy.jdx\n  sha256: ${'0'.repeat(64)}\n\npicks: []\n\ncouplings: []\n`;
+    h = harness(other);
+    await h.session.receive({ type: 'accept', peakIndex: 1, method: 'fit', dimension: 'F2', labels: ['H-1', 'H-2'] });
+    expect(h.store.value).toBe(other);
+    expect(h.store.writes).toBe(0);
+    expect(h.notes).toHaveLength(1);
+    expect(h.notes[0]).toMatch(/^cosy\.jdx\.couplet\.yaml:4: .*Couplet will not write it until then\.$/);
+    expect(last(h)).toEqual({ type: 'error', message: h.notes[0] });
+  });
+
+  it('labels and removes picks through the sidecar', async () => {
+    await h.session.receive({ type: 'accept', peakIndex: 2, method: 'fit', dimension: 'F2', labels: [] });
+    const id = h.session.state().view.picks[0]?.id ?? '';
+    expect(h.session.state().view.couplings).toEqual([]);
+    await h.session.receive({ type: 'label', pickId: id, labels: ['H-2', 'H-1'] });
+    // The measurement accepted before the labels becomes the coupling now.
+    expect(h.session.state().view.couplings.map((c) => c.atoms)).toEqual([['H-1', 'H-2']]);
+    await h.session.receive({ type: 'removePick', pickId: id });
+    expect(h.session.state().view.picks).toEqual([]);
+    expect(h.store.writes).toBe(3);
+  });
+
+  it('measures all cross peaks with progress, skipping the diagonal', async () => {
+    const r = await h.session.measureAll('naive');
+    expect(r).toEqual({ measured: 2, failed: [], cancelled: false });
+    expect(h.posted.filter((m) => m.type === 'progress').map((m) => m.type === 'progress' && m.done)).toEqual([0, 1, 2]);
+  });
+});
+
+describe('PanelSession on a 1D spectrum', () => {
+  // Two Lorentzian lines 7 Hz apart at 3.00 ppm (600 MHz) on a flat baseline: one multiplet.
+  const axis = makeAxis(2048, 2000, 1600, 600);
+  const data = Float64Array.from({ length: 2048 }, (_, i) => {
+    const hz = 2000 - (i * 400) / 2047;
+    return [1803.5, 1796.5].reduce((s, c) => s + 100 / (1 + ((2 * (hz - c)) / 1.2) ** 2), 0) + 0.01 * Math.sin(i * 12.9898);
+  });
+  const spectrum = make1D('doublet', data, axis);
+  const model = { fileName: '1h.jdx', sha256: 'cd'.repeat(32), spectrum, noise: 0.01, crossPeaks: [], multiplets: [{ ppm: 3, hz: 1800, fromPpm: 3.01, toPpm: 2.99, point0: 0, point1: 1, height: 100, lines: [] }] };
+
+  it('records a multiplet pick without a coupling, and refuses to measure it with a reason', async () => {
+    const h = harness(null, model);
+    await h.session.receive({ type: 'measure', id: 1, peakIndex: 0, method: 'fit', dimension: 'F2' });
+    expect(last(h)).toMatchObject({ type: 'error', inReplyTo: 1, message: expect.stringContaining('1h.jdx is a 1D spectrum') });
+    await h.session.receive({ type: 'accept', peakIndex: 0, method: 'fit', dimension: 'F2', labels: ['H-3'] });
+    expect(h.store.value).toContain('  - id: p-3.0000\n    f2_ppm: 3.0000\n    label: H-3\n    kind: multiplet\n');
+    expect(h.store.value).toContain('couplings: []\n');
+  });
+});
