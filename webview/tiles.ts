@@ -34,7 +34,7 @@ export interface TileOptions {
   readonly chunkCells: number;
 }
 
-export const DEFAULT_TILE_OPTIONS: TileOptions = { pixelsPerCell: 1, margin: 0.25, chunkCells: 32 };
+export const DEFAULT_TILE_OPTIONS: TileOptions = { pixelsPerCell: 1, margin: 0.125, chunkCells: 32 };
 
 /** Smallest power of two >= x (x >= 1). */
 export function strideFor(pointsVisible: number, cellsAvailable: number): number {

@@ -1,0 +1,26 @@
+import { describe, expect, it } from 'vitest';
+import type { FromWebview } from '../../src/protocol';
+import { Requests } from '../../webview/rpc';
+
+describe('Requests', () => {
+  it('numbers requests and settles each by its inReplyTo', async () => {
+    const sent: FromWebview[] = [];
+    const r = new Requests<string>();
+    const a = r.send((m) => sent.push(m), (id) => ({ type: 'measure', id, peakIndex: 1, method: 'fit', dimension: 'F2' }));
+    const b = r.send((m) => sent.push(m), (id) => ({ type: 'measure', id, peakIndex: 2, method: 'fit', dimension: 'F2' }));
+    expect(sent.map((m) => (m.type === 'measure' ? m.id : -1))).toEqual([a.id, b.id]);
+    expect(a.id).not.toBe(b.id);
+    expect(r.resolve(b.id, 'second')).toBe(true);
+    expect(r.reject(a.id, 'no peak')).toBe(true);
+    await expect(b.promise).resolves.toBe('second');
+    await expect(a.promise).rejects.toThrow('no peak');
+    expect(r.pendingCount).toBe(0);
+  });
+  it('ignores late or duplicate replies', () => {
+    const r = new Requests<string>();
+    const a = r.send(() => undefined, (id) => ({ type: 'cancel', id } as unknown as FromWebview));
+    expect(r.resolve(a.id, 'x')).toBe(true);
+    expect(r.resolve(a.id, 'y')).toBe(false);
+    expect(r.resolve(999, 'z')).toBe(false);
+  });
+});

@@ -1,0 +1,141 @@
+/**
+ * Webview entry: handshake (`ready` -> `init`), validation of every incoming message with
+ * parseToWebview, routing of replies to their requests, and the toolbar wiring.
+ */
+import { parseToWebview, type FromWebview, type InitMessage, type ToWebview } from '../src/protocol';
+import { commandAction } from './keys';
+import { checkContourSettings } from './levels';
+import { Panel, type Elements, type SavedState } from './panel';
+import { Requests, type Rpc } from './rpc';
+import { createToolbar, type Toolbar } from './toolkit';
+import { bindInput } from './input';
+import { parseLabels } from './labels';
+
+interface VsCodeApi {
+  postMessage(message: FromWebview): void;
+  getState(): unknown;
+  setState(state: SavedState): void;
+}
+declare function acquireVsCodeApi(): VsCodeApi;
+
+const vscode = acquireVsCodeApi();
+
+function byId<T extends HTMLElement>(id: string): T {
+  const el = document.getElementById(id);
+  if (!el) throw new Error(`panel HTML has no #${id}`);
+  return el as T;
+}
+
+const el: Elements = {
+  canvas: byId<HTMLCanvasElement>('plot'),
+  readout: byId('readout'),
+  status: byId('status'),
+  trace: byId('trace'),
+  traceCanvas: byId<HTMLCanvasElement>('traceCanvas'),
+  traceText: byId('traceText'),
+};
+const rpc: Rpc = { post: (m) => vscode.postMessage(m), requests: new Requests() };
+const toolbar = createToolbar(byId('toolbar'));
+let panel: Panel | null = null;
+
+function labelKey(p: Panel, t: Toolbar): void {
+  const pick = p.pickFor(p.selected);
+  if (pick && !t.label.value) t.label.value = pick.label.join(', ');
+  t.label.focus();
+  t.label.select();
+}
+
+function acceptKey(p: Panel, t: Toolbar): void {
+  p.accept(parseLabels(t.label.value));
+}
+
+function applyLabel(p: Panel, t: Toolbar): void {
+  const labels = parseLabels(t.label.value);
+  const pick = p.pickFor(p.selected);
+  if (pick) {
+    rpc.post({ type: 'label', pickId: pick.id, labels });
+    p.status(`Labelled ${pick.id}: ${labels.join(', ')}`);
+  } else {
+    p.status(labels.length ? `Labels ${labels.join(', ')} will be stored on Accept.` : '');
+  }
+  el.canvas.focus();
+}
+
+function start(init: InitMessage): void {
+  const saved = (vscode.getState() ?? {}) as SavedState;
+  const p = new Panel(init, el, rpc, (s) => vscode.setState(s), saved);
+  panel = p;
+  toolbar.setKnownLabels(init.knownLabels);
+  toolbar.lowest.set(p.contours.lowestLevel);
+  toolbar.levels.set(p.contours.levels);
+  toolbar.spacing.set(p.contours.spacing);
+  toolbar.method.set(p.method);
+  toolbar.dimension.set(p.dimension);
+  toolbar.setEnabled(toolbar.dimension.element, init.spectrum.dims === 2);
+  p.setSidecar(init.sidecar);
+  const wrap = byId('plotWrap');
+  p.resize({ width: wrap.clientWidth, height: wrap.clientHeight });
+  el.canvas.focus();
+}
+
+function onMessage(m: ToWebview): void {
+  if (m.type === 'init') return start(m);
+  const p = panel;
+  switch (m.type) {
+    case 'tile': case 'measured':
+      if (!rpc.requests.resolve(m.inReplyTo, m)) console.warn(`couplet: reply to unknown request ${m.inReplyTo}`);
+      return;
+    case 'error':
+      if (m.inReplyTo !== undefined && rpc.requests.reject(m.inReplyTo, m.message)) return;
+      return void p?.status(m.message);
+    case 'sidecar': return void p?.setSidecar(m.sidecar);
+    case 'progress': return void p?.status(m.done < m.total ? `${m.task}: ${m.done} / ${m.total} (Esc cancels)` : `${m.task}: done`);
+    case 'command': {
+      if (!p) return;
+      const a = commandAction(m.command);
+      if (a.kind === 'label') return labelKey(p, toolbar);
+      if (a.kind === 'accept') return acceptKey(p, toolbar);
+      return p.act(a);
+    }
+  }
+}
+
+window.addEventListener('message', (e: MessageEvent<unknown>) => {
+  const parsed = parseToWebview(e.data);
+  if (!parsed.ok) {
+    console.warn(`couplet: ignored a message from the host: ${parsed.error}`);
+    return;
+  }
+  onMessage(parsed.value);
+});
+
+bindInput(el.canvas, el.readout, () => panel, () => panel && labelKey(panel, toolbar), () => panel && acceptKey(panel, toolbar));
+
+const contoursFromToolbar = (): void => {
+  if (!panel) return;
+  const c = { lowestLevel: toolbar.lowest.value(), levels: toolbar.levels.value(), spacing: toolbar.spacing.value() };
+  const bad = checkContourSettings(c);
+  if (bad) return panel.status(bad);
+  panel.status('');
+  panel.setContours(c);
+};
+for (const f of [toolbar.lowest, toolbar.levels, toolbar.spacing]) f.onChange(contoursFromToolbar);
+toolbar.method.onChange((v) => { if (panel) { panel.method = v; panel.persist(); } });
+toolbar.dimension.onChange((v) => { if (panel) { panel.dimension = v; panel.persist(); } });
+toolbar.onClick(toolbar.reset, () => panel?.act({ kind: 'resetZoom' }));
+toolbar.onClick(toolbar.measure, () => panel?.measure());
+toolbar.onClick(toolbar.accept, () => panel && acceptKey(panel, toolbar));
+toolbar.onClick(toolbar.measureAll, () => panel && rpc.post({ type: 'measureAll', method: panel.method }));
+toolbar.label.addEventListener('keydown', (e) => {
+  if (e.key === 'Enter' && panel) applyLabel(panel, toolbar);
+  if (e.key === 'Escape') el.canvas.focus();
+});
+
+new ResizeObserver(() => {
+  const wrap = byId('plotWrap');
+  panel?.resize({ width: wrap.clientWidth, height: wrap.clientHeight });
+}).observe(byId('plotWrap'));
+// VS Code swaps the body's theme class when the colour theme changes.
+new MutationObserver(() => panel?.themeChanged()).observe(document.body, { attributes: true, attributeFilter: ['class'] });
+
+vscode.postMessage({ type: 'ready' });

@@ -1,0 +1,290 @@
+/**
+ * The panel's state and actions: view, selection, tiles, contours, measurement. Input handlers
+ * (input.ts) and host messages (main.ts) call its methods; drawing happens once per animation
+ * frame, and contouring is spread over frames (a few ms each) so input stays responsive.
+ */
+import type { ContourSettings, InitMessage, MeasurementView, PeakView, PickView, SidecarView, ViewSettings } from '../src/protocol';
+import type { Rpc } from './rpc';
+import { ContourCache, setLevels, step, type CacheEntry } from './contourCache';
+import type { Action } from './keys';
+import { contourLevels, levelsKey, levelUnit } from './levels';
+import { drawFrame, layoutFor, screenOf, type Frame, type Layout } from './plot';
+import { fullDomain, ppmToPoint, type View } from './scales';
+import { readPalette, type Palette } from './theme';
+import { covers, planTile, type PointWindow, type TilePlan } from './tiles';
+import { drawTraces } from './traceView';
+import { boxZoom, centredOn, clampView, nearestOnScreen, pan, step as stepOrder, zoomAt, type Extent } from './viewModel';
+
+export interface Elements {
+  readonly canvas: HTMLCanvasElement;
+  readonly readout: HTMLElement;
+  readonly status: HTMLElement;
+  readonly trace: HTMLElement;
+  readonly traceCanvas: HTMLCanvasElement;
+  readonly traceText: HTMLElement;
+}
+
+/** What survives the panel being hidden (getState/setState instead of retainContextWhenHidden). */
+export interface SavedState {
+  readonly view?: View;
+  readonly selected?: number | null;
+  readonly contours?: ContourSettings;
+  readonly method?: 'fit' | 'naive';
+  readonly dimension?: 'F2' | 'F1';
+}
+
+/** Budget per animation frame for contouring, ms: leaves most of a 16 ms frame for input. */
+const FRAME_BUDGET_MS = 6;
+/** Clicks farther than this from every peak select nothing, CSS px. */
+const SNAP_PX = 24;
+
+export class Panel {
+  readonly meta: InitMessage['spectrum'];
+  readonly settings: ViewSettings;
+  contours: ContourSettings;
+  method: 'fit' | 'naive';
+  dimension: 'F2' | 'F1';
+  peaks: readonly PeakView[];
+  sidecar: SidecarView;
+  view: View;
+  selected: number | null;
+  measurement: MeasurementView | null = null;
+  box: Frame['box'] = null;
+  readonly extent: Extent;
+  private readonly cache = new ContourCache();
+  private magnitudes: readonly number[] = [];
+  private levelsKey = '';
+  private inflight: string | null = null;
+  private layout: Layout = layoutFor({ width: 300, height: 200 }, 1);
+  private palette: Palette;
+  private frameQueued = false;
+
+  constructor(init: InitMessage, private readonly el: Elements, private readonly rpc: Rpc, private readonly save: (s: SavedState) => void, saved: SavedState) {
+    this.meta = init.spectrum;
+    this.settings = init.settings;
+    this.peaks = init.peaks;
+    this.sidecar = init.sidecar;
+    this.contours = saved.contours ?? init.settings.contours;
+    this.method = saved.method ?? init.settings.defaultMethod;
+    this.dimension = saved.dimension ?? 'F2';
+    this.extent = this.makeExtent();
+    this.view = clampView(saved.view ?? { x: this.extent.x, y: this.extent.y }, this.extent);
+    this.selected = saved.selected ?? null;
+    this.palette = readPalette();
+    this.setContours(this.contours);
+  }
+
+  private makeExtent(): Extent {
+    const m = this.meta;
+    const x = fullDomain(m.f2);
+    const ppmPerPoint = Math.abs(x[0] - x[1]) / (m.f2.points - 1);
+    if (m.f1) {
+      const y = fullDomain(m.f1);
+      return { x, y, minSpanX: ppmPerPoint * 8, minSpanY: (Math.abs(y[0] - y[1]) / (m.f1.points - 1)) * 8 };
+    }
+    const pad = 0.05 * (m.max - m.min || 1);
+    return { x, y: [m.max + pad, m.min - pad], minSpanX: ppmPerPoint * 8, minSpanY: (m.max - m.min || 1) / 1e4 };
+  }
+
+  persist(): void {
+    this.save({ view: this.view, selected: this.selected, contours: this.contours, method: this.method, dimension: this.dimension });
+  }
+
+  setContours(c: ContourSettings): void {
+    this.contours = c;
+    const levels = contourLevels(levelUnit(this.meta), c);
+    this.magnitudes = levels.magnitudes;
+    this.levelsKey = levelsKey(levels);
+    this.persist();
+    this.redraw();
+  }
+
+  setSidecar(s: SidecarView): void {
+    this.sidecar = s;
+    this.status(s.blocked ? `Sidecar not editable: ${s.blocked}` : '');
+    this.redraw();
+  }
+
+  resize(css: { width: number; height: number }): void {
+    const dpr = window.devicePixelRatio || 1;
+    this.el.canvas.width = Math.round(css.width * dpr);
+    this.el.canvas.height = Math.round(css.height * dpr);
+    this.layout = layoutFor(css, dpr);
+    this.palette = readPalette(); // a theme change also resizes nothing, but costs nothing to re-read here
+    this.redraw();
+  }
+
+  themeChanged(): void {
+    this.palette = readPalette();
+    this.redraw();
+  }
+
+  status(text: string): void {
+    this.el.status.textContent = text;
+  }
+
+  get plotLayout(): Layout {
+    return this.layout;
+  }
+
+  setView(v: View): void {
+    this.view = clampView(v, this.extent);
+    this.persist();
+    this.redraw();
+  }
+
+  redraw(): void {
+    if (this.frameQueued) return;
+    this.frameQueued = true;
+    requestAnimationFrame(() => {
+      this.frameQueued = false;
+      this.frame();
+    });
+  }
+
+  private pointWindow(): PointWindow {
+    const m = this.meta;
+    const span = (a: typeof m.f2, d: readonly [number, number]): [number, number] => {
+      const p0 = ppmToPoint(a, d[0]);
+      const p1 = ppmToPoint(a, d[1]);
+      return [Math.max(0, Math.min(p0, p1)), Math.min(a.points - 1, Math.max(p0, p1))];
+    };
+    const [col0, col1] = span(m.f2, this.view.x);
+    const [row0, row1] = m.f1 ? span(m.f1, this.view.y) : [0, 0];
+    return { row0, row1, col0, col1 };
+  }
+
+  private plan(): TilePlan {
+    const m = this.meta;
+    return planTile(this.pointWindow(), { rows: m.f1?.points ?? 1, cols: m.f2.points }, this.layout.plot);
+  }
+
+  private requestTile(plan: TilePlan): void {
+    if (this.inflight !== null) return; // one at a time: the reply's frame asks again for the latest view
+    this.inflight = plan.key;
+    const req = this.rpc.requests.send(this.rpc.post, (id) => ({ type: 'requestTile', id, region: plan.region, maxRows: plan.maxRows, maxCols: plan.maxCols }));
+    req.promise.then(
+      (t) => {
+        if (t.type !== 'tile') return this.status(`Unexpected reply "${t.type}" to a tile request.`);
+        this.cache.put(plan, { rows: t.rows, cols: t.cols, data: t.data }, this.magnitudes, this.levelsKey);
+      },
+      (e: unknown) => this.status(`Could not load the spectrum region: ${e instanceof Error ? e.message : String(e)}`),
+    ).finally(() => {
+      this.inflight = null;
+      this.redraw();
+    });
+  }
+
+  /** The tiles to draw: the one for this view, plus the newest finished one while it is incomplete. */
+  private tilesFor(plan: TilePlan, win: PointWindow): CacheEntry[] {
+    const current = this.cache.get(plan.key);
+    if (current) setLevels(current, this.magnitudes, this.levelsKey);
+    const out: CacheEntry[] = current ? [current] : [];
+    if (!current || current.queue.length > 0) {
+      const stale = this.cache.recent().find((e) => e !== current && e.levelsKey === this.levelsKey && e.queue.length === 0 && (covers(e.plan.region, win) || !current));
+      if (stale) out.push(stale);
+    }
+    return out;
+  }
+
+  private frame(): void {
+    const plan = this.plan();
+    const win = this.pointWindow();
+    if (!this.cache.get(plan.key) && this.inflight !== plan.key) this.requestTile(plan);
+    const tiles = this.tilesFor(plan, win);
+    const current = tiles[0]?.plan.key === plan.key ? tiles[0] : undefined;
+    const more = current ? step(current, FRAME_BUDGET_MS, () => performance.now()) : false;
+    const ctx = this.el.canvas.getContext('2d');
+    if (ctx) drawFrame(ctx, this.frameData(tiles), this.layout, this.palette);
+    if (more) this.redraw();
+  }
+
+  private frameData(tiles: readonly CacheEntry[]): Frame {
+    return { meta: this.meta, view: this.view, tiles, levelCount: this.contours.levels, peaks: this.peaks, picks: this.sidecar.picks, selected: this.selected, box: this.box };
+  }
+
+  /** Peak nearest a canvas point (CSS px), in screen distance; 1D compares positions along F2 only. */
+  peakAt(x: number, y: number): number | null {
+    const f = this.frameData([]);
+    const pts = this.peaks.map((k) => ({ index: k.index, ...screenOf(f, this.layout, k.f2Ppm, k.f1Ppm) }));
+    return nearestOnScreen(this.meta.dims === 2 ? pts : pts.map((p) => ({ ...p, y })), x, y, SNAP_PX);
+  }
+
+  /** The sidecar pick drawn on a peak (within a few pixels), if any. */
+  pickFor(peakIndex: number | null): PickView | undefined {
+    const k = this.peaks.find((p) => p.index === peakIndex);
+    if (!k) return undefined;
+    const f = this.frameData([]);
+    const at = screenOf(f, this.layout, k.f2Ppm, k.f1Ppm);
+    return this.sidecar.picks.find((p) => {
+      const s = screenOf(f, this.layout, p.f2Ppm, p.f1Ppm);
+      return Math.hypot(s.x - at.x, s.y - at.y) <= 6;
+    });
+  }
+
+  select(index: number | null): void {
+    this.selected = index;
+    this.persist();
+    this.redraw();
+  }
+
+  measure(): void {
+    const idx = this.selected;
+    if (idx === null) return this.status('Select a peak first (click near it, or N / P).');
+    this.status('Measuring…');
+    const req = this.rpc.requests.send(this.rpc.post, (id) => ({ type: 'measure', id, peakIndex: idx, method: this.method, dimension: this.dimension }));
+    req.promise.then(
+      (m) => {
+        if (m.type !== 'measured') return this.status(`Unexpected reply "${m.type}" to a measurement.`);
+        this.measurement = m.measurement;
+        this.status('');
+        this.showTrace();
+      },
+      (e: unknown) => this.status(`Measurement failed: ${e instanceof Error ? e.message : String(e)}`),
+    );
+  }
+
+  showTrace(): void {
+    if (!this.measurement) return;
+    this.el.trace.hidden = false;
+    drawTraces(this.el.traceCanvas, this.el.traceText, this.measurement, this.settings.jDecimals, this.palette);
+  }
+
+  accept(labels: readonly string[]): void {
+    const m = this.measurement;
+    if (!m || m.peakIndex !== this.selected) return this.status('Measure the selected peak before accepting.');
+    if (this.sidecar.blocked) return this.status(`Sidecar not editable: ${this.sidecar.blocked}`);
+    this.rpc.post({ type: 'accept', peakIndex: m.peakIndex, method: m.method, dimension: m.dimension, labels });
+    this.status(`Accepted J = ${m.jHz.toFixed(this.settings.jDecimals)} Hz.`);
+  }
+
+  /** Keyboard and host-command actions that need no text input (label is handled by main). */
+  act(a: Action): void {
+    const L = this.layout.plot;
+    switch (a.kind) {
+      case 'pan': return this.setView(pan(this.view, this.extent, L, a.dx * L.width, a.dy * L.height));
+      case 'zoom': return this.setView(zoomAt(this.view, this.extent, L, L.width / 2, L.height / 2, a.factor, this.meta.dims === 2 ? 'xy' : 'x'));
+      case 'resetZoom': return this.setView({ x: this.extent.x, y: this.extent.y });
+      case 'nextPeak': case 'previousPeak': {
+        const order = [...this.peaks].sort((p, q) => q.f2Ppm - p.f2Ppm || (q.f1Ppm ?? 0) - (p.f1Ppm ?? 0)).map((p) => p.index);
+        return this.select(stepOrder(order, this.selected, a.kind === 'nextPeak' ? 1 : -1));
+      }
+      case 'zoomToPeak': {
+        const k = this.peaks.find((p) => p.index === this.selected);
+        if (!k) return this.status('Select a peak first.');
+        const sx = Math.max(Math.abs(k.extent.f2FromPpm - k.extent.f2ToPpm) * 3, this.extent.minSpanX * 4);
+        const sy = this.meta.f1 ? Math.max(Math.abs((k.extent.f1FromPpm ?? 0) - (k.extent.f1ToPpm ?? 0)) * 3, this.extent.minSpanY * 4) : Math.abs(this.view.y[0] - this.view.y[1]);
+        const c = centredOn(this.extent, k.f2Ppm, k.f1Ppm ?? (this.view.y[0] + this.view.y[1]) / 2, sx, sy);
+        return this.setView(this.meta.f1 ? c : { x: c.x, y: this.view.y });
+      }
+      case 'measure': return this.measure();
+      case 'cancel': this.rpc.post({ type: 'cancel' }); this.box = null; return this.redraw();
+      default: return undefined;
+    }
+  }
+
+  boxZoom(x0: number, y0: number, x1: number, y1: number): void {
+    const v = boxZoom(this.view, this.extent, this.layout.plot, x0, y0, x1, y1);
+    this.setView(this.meta.dims === 2 ? v : { x: v.x, y: this.view.y });
+  }
+}

@@ -1,0 +1,208 @@
+/**
+ * Canvas drawing of one frame: contours (2D) or the line (1D), cross peaks, picks, the selection,
+ * the box-zoom rectangle and the axes. Geometry comes from the contour cache in tile coordinates;
+ * one affine map per tile takes it to device pixels, so a pan is a redraw, not a re-contour.
+ */
+import type { PeakView, PickView, SpectrumMeta } from '../src/protocol';
+import type { CacheEntry } from './contourCache';
+import { tileToGrid, type LevelRings } from './contours';
+import { pointToPixel, xScale, yScale, type Size, type View } from './scales';
+import { levelAlpha, type Palette } from './theme';
+
+export interface Layout {
+  readonly dpr: number;
+  readonly css: Size;
+  /** Plot area inside the canvas, CSS pixels. */
+  readonly left: number;
+  readonly top: number;
+  readonly plot: Size;
+}
+
+export const MARGIN = { left: 58, right: 14, top: 10, bottom: 40 } as const;
+
+export function layoutFor(css: Size, dpr: number): Layout {
+  return { dpr, css, left: MARGIN.left, top: MARGIN.top, plot: { width: Math.max(10, css.width - MARGIN.left - MARGIN.right), height: Math.max(10, css.height - MARGIN.top - MARGIN.bottom) } };
+}
+
+export interface Frame {
+  readonly meta: SpectrumMeta;
+  readonly view: View;
+  readonly tiles: readonly CacheEntry[];
+  readonly levelCount: number;
+  readonly peaks: readonly PeakView[];
+  readonly picks: readonly PickView[];
+  readonly selected: number | null;
+  readonly box: { x0: number; y0: number; x1: number; y1: number } | null;
+}
+
+const paths = new WeakMap<LevelRings, Path2D>();
+
+function pathOf(l: LevelRings): Path2D {
+  let p = paths.get(l);
+  if (!p) {
+    p = new Path2D();
+    for (const r of l.rings) {
+      p.moveTo(r[0] ?? 0, r[1] ?? 0);
+      for (let i = 2; i < r.length; i += 2) p.lineTo(r[i] ?? 0, r[i + 1] ?? 0);
+      p.closePath();
+    }
+    paths.set(l, p);
+  }
+  return p;
+}
+
+/** Tile coordinates -> device pixels for one cached tile. */
+function tileMatrix(e: CacheEntry, f: Frame, L: Layout): DOMMatrix {
+  const r = e.plan.region;
+  const gx = tileToGrid(r.col0, r.col1 - r.col0 + 1, e.tile.cols);
+  const px = pointToPixel(f.meta.f2, f.view.x, L.plot.width);
+  let sy = 1, ey = 0;
+  if (f.meta.f1) {
+    const gy = tileToGrid(r.row0, r.row1 - r.row0 + 1, e.tile.rows);
+    const py = pointToPixel(f.meta.f1, f.view.y, L.plot.height);
+    sy = py.scale * gy.scale;
+    ey = py.scale * gy.offset + py.offset + L.top;
+  }
+  const d = L.dpr;
+  return new DOMMatrix([d * px.scale * gx.scale, 0, 0, d * sy, d * (px.scale * gx.offset + px.offset + L.left), d * ey]);
+}
+
+function drawContours(ctx: CanvasRenderingContext2D, f: Frame, L: Layout, p: Palette): void {
+  // Oldest first, so the newest tile is drawn on top of any stale one it replaces.
+  for (const e of [...f.tiles].reverse()) {
+    const m = tileMatrix(e, f, L);
+    const byMagnitude = [...new Set(e.done.map((l) => Math.abs(l.level)))].sort((a, b) => a - b);
+    for (const l of e.done) {
+      const path = new Path2D();
+      path.addPath(pathOf(l), m);
+      const k = byMagnitude.indexOf(Math.abs(l.level));
+      ctx.globalAlpha = levelAlpha(k, Math.max(f.levelCount, byMagnitude.length), p);
+      ctx.strokeStyle = l.level > 0 ? p.positive : p.negative;
+      ctx.lineWidth = (p.highContrast ? 1.5 : 1) * L.dpr;
+      ctx.setLineDash(l.level < 0 && p.highContrast ? [4 * L.dpr, 3 * L.dpr] : []);
+      ctx.stroke(path);
+    }
+  }
+  ctx.globalAlpha = 1;
+  ctx.setLineDash([]);
+}
+
+function drawLine1D(ctx: CanvasRenderingContext2D, f: Frame, L: Layout, p: Palette): void {
+  const ys = yScale(f.view, L.plot);
+  for (const e of [...f.tiles].reverse()) {
+    const m = tileMatrix(e, f, L);
+    ctx.beginPath();
+    for (let j = 0; j < e.tile.cols; j++) {
+      const x = m.a * (j + 0.5) + m.e;
+      const y = L.dpr * (ys(e.tile.data[j] ?? 0) + L.top);
+      if (j === 0) ctx.moveTo(x, y);
+      else ctx.lineTo(x, y);
+    }
+    ctx.strokeStyle = p.positive;
+    ctx.lineWidth = (p.highContrast ? 1.5 : 1) * L.dpr;
+    ctx.stroke();
+  }
+}
+
+/** Screen position (CSS px, canvas coordinates) of a peak or pick; 1D markers sit near the top. */
+export function screenOf(f: Frame, L: Layout, f2Ppm: number, f1Ppm: number | undefined): { x: number; y: number } {
+  const x = xScale(f.view, L.plot)(f2Ppm) + L.left;
+  const y = f.meta.dims === 2 && f1Ppm !== undefined ? yScale(f.view, L.plot)(f1Ppm) + L.top : L.top + 14;
+  return { x, y };
+}
+
+function drawMarkers(ctx: CanvasRenderingContext2D, f: Frame, L: Layout, p: Palette): void {
+  const d = L.dpr;
+  ctx.lineWidth = d;
+  // Cross peaks the core found: a small, faint plus.
+  ctx.strokeStyle = p.muted;
+  ctx.globalAlpha = p.highContrast ? 1 : 0.6;
+  for (const k of f.peaks) {
+    const s = screenOf(f, L, k.f2Ppm, k.f1Ppm);
+    ctx.beginPath();
+    ctx.moveTo(d * (s.x - 3), d * s.y); ctx.lineTo(d * (s.x + 3), d * s.y);
+    ctx.moveTo(d * s.x, d * (s.y - 3)); ctx.lineTo(d * s.x, d * (s.y + 3));
+    ctx.stroke();
+  }
+  ctx.globalAlpha = 1;
+  // Picks: an open diamond with its labels beside it.
+  ctx.strokeStyle = p.pick;
+  ctx.fillStyle = p.pick;
+  ctx.font = p.font.replace(/(\d+(\.\d+)?)px/, (_m, n: string) => `${Number(n) * d}px`);
+  ctx.lineWidth = 1.5 * d;
+  for (const k of f.picks) {
+    const s = screenOf(f, L, k.f2Ppm, k.f1Ppm);
+    ctx.beginPath();
+    ctx.moveTo(d * s.x, d * (s.y - 6)); ctx.lineTo(d * (s.x + 6), d * s.y);
+    ctx.lineTo(d * s.x, d * (s.y + 6)); ctx.lineTo(d * (s.x - 6), d * s.y);
+    ctx.closePath();
+    ctx.stroke();
+    if (k.label.length > 0) ctx.fillText(k.label.join(' / '), d * (s.x + 9), d * (s.y - 7));
+  }
+  const sel = f.peaks.find((k) => k.index === f.selected);
+  if (sel) {
+    const s = screenOf(f, L, sel.f2Ppm, sel.f1Ppm);
+    ctx.strokeStyle = p.focus;
+    ctx.lineWidth = 2 * d;
+    ctx.beginPath();
+    ctx.arc(d * s.x, d * s.y, 10 * d, 0, 2 * Math.PI);
+    ctx.stroke();
+  }
+}
+
+function drawAxes(ctx: CanvasRenderingContext2D, f: Frame, L: Layout, p: Palette): void {
+  const d = L.dpr;
+  const xs = xScale(f.view, L.plot);
+  const ys = yScale(f.view, L.plot);
+  ctx.strokeStyle = p.grid;
+  ctx.fillStyle = p.foreground;
+  ctx.lineWidth = d;
+  ctx.strokeRect(d * L.left, d * L.top, d * L.plot.width, d * L.plot.height);
+  ctx.font = p.font.replace(/(\d+(\.\d+)?)px/, (_m, n: string) => `${Number(n) * d}px`);
+  ctx.textAlign = 'center';
+  ctx.textBaseline = 'top';
+  const bottom = L.top + L.plot.height;
+  const fx = xs.tickFormat(Math.max(2, Math.floor(L.plot.width / 90)));
+  for (const t of xs.ticks(Math.max(2, Math.floor(L.plot.width / 90)))) {
+    const x = xs(t) + L.left;
+    ctx.beginPath(); ctx.moveTo(d * x, d * bottom); ctx.lineTo(d * x, d * (bottom + 5)); ctx.stroke();
+    ctx.fillText(fx(t), d * x, d * (bottom + 7));
+  }
+  ctx.fillText('F2 (ppm)', d * (L.left + L.plot.width / 2), d * (bottom + 22));
+  ctx.textAlign = 'right';
+  ctx.textBaseline = 'middle';
+  const ny = Math.max(2, Math.floor(L.plot.height / 60));
+  const fy = f.meta.dims === 2 ? ys.tickFormat(ny) : ys.tickFormat(ny, '.2~s');
+  for (const t of ys.ticks(ny)) {
+    const y = ys(t) + L.top;
+    ctx.beginPath(); ctx.moveTo(d * (L.left - 5), d * y); ctx.lineTo(d * L.left, d * y); ctx.stroke();
+    ctx.fillText(fy(t), d * (L.left - 7), d * y);
+  }
+  ctx.save();
+  ctx.translate(d * 12, d * (L.top + L.plot.height / 2));
+  ctx.rotate(-Math.PI / 2);
+  ctx.textAlign = 'center';
+  ctx.fillText(f.meta.dims === 2 ? 'F1 (ppm)' : 'intensity', 0, 0);
+  ctx.restore();
+}
+
+export function drawFrame(ctx: CanvasRenderingContext2D, f: Frame, L: Layout, p: Palette): void {
+  const d = L.dpr;
+  ctx.setTransform(1, 0, 0, 1, 0, 0);
+  ctx.clearRect(0, 0, d * L.css.width, d * L.css.height);
+  ctx.save();
+  ctx.beginPath();
+  ctx.rect(d * L.left, d * L.top, d * L.plot.width, d * L.plot.height);
+  ctx.clip();
+  if (f.meta.dims === 2) drawContours(ctx, f, L, p);
+  else drawLine1D(ctx, f, L, p);
+  drawMarkers(ctx, f, L, p);
+  if (f.box) {
+    ctx.strokeStyle = p.focus;
+    ctx.setLineDash([3 * d, 3 * d]);
+    ctx.strokeRect(d * Math.min(f.box.x0, f.box.x1), d * Math.min(f.box.y0, f.box.y1), d * Math.abs(f.box.x1 - f.box.x0), d * Math.abs(f.box.y1 - f.box.y0));
+    ctx.setLineDash([]);
+  }
+  ctx.restore();
+  drawAxes(ctx, f, L, p);
+}

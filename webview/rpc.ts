@@ -1,0 +1,50 @@
+/**
+ * Request/reply over postMessage: each request gets a fresh `id`, the reply names it in
+ * `inReplyTo`. Pure (the post function is passed in), so it is tested in Node.
+ */
+import type { FromWebview, MeasuredMessage, TileMessage } from '../src/protocol';
+
+export interface Pending<T> {
+  readonly id: number;
+  readonly promise: Promise<T>;
+}
+
+export class Requests<Reply> {
+  private nextId = 1;
+  private readonly waiting = new Map<number, { resolve: (r: Reply) => void; reject: (e: Error) => void }>();
+
+  /** Sends `build(id)` through `post` and returns the id and a promise of the reply. */
+  send(post: (message: FromWebview) => void, build: (id: number) => FromWebview): Pending<Reply> {
+    const id = this.nextId++;
+    const promise = new Promise<Reply>((resolve, reject) => this.waiting.set(id, { resolve, reject }));
+    post(build(id));
+    return { id, promise };
+  }
+
+  /** Settles the request a reply answers; false when nobody waits for it (late or duplicate). */
+  resolve(inReplyTo: number, reply: Reply): boolean {
+    const w = this.waiting.get(inReplyTo);
+    if (!w) return false;
+    this.waiting.delete(inReplyTo);
+    w.resolve(reply);
+    return true;
+  }
+
+  reject(inReplyTo: number, message: string): boolean {
+    const w = this.waiting.get(inReplyTo);
+    if (!w) return false;
+    this.waiting.delete(inReplyTo);
+    w.reject(new Error(message));
+    return true;
+  }
+
+  get pendingCount(): number {
+    return this.waiting.size;
+  }
+}
+
+/** What the panel uses to talk to the host: one id sequence for every kind of request. */
+export interface Rpc {
+  readonly post: (m: FromWebview) => void;
+  readonly requests: Requests<TileMessage | MeasuredMessage>;
+}
