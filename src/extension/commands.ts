@@ -58,10 +58,8 @@ export function registerCommands(provider: SpectrumEditorProvider, output: vscod
     ...PANEL_COMMANDS.map((command) => vscode.commands.registerCommand(`couplet.${command}`,
       () => withPanel((p) => void p.panel.webview.postMessage({ type: 'command', command } satisfies CommandMessage)))),
     vscode.commands.registerCommand('couplet.measureAll', () => withPanel(async (p) => {
-      const r = await p.session.measureAll(settings().defaultMethod);
-      output.appendLine(`${p.document.store.fileName}: measured ${r.measured} cross peaks${r.cancelled ? ' (cancelled)' : ''}`);
-      r.failed.forEach((f) => output.appendLine(`  ${f}`));
-      void vscode.window.showInformationMessage(`Couplet: ${r.measured} cross peaks measured${r.failed.length ? `, ${r.failed.length} failed (see the Couplet output)` : ''}${r.cancelled ? '; cancelled' : ''}.`);
+      output.show(true);
+      return p.session.measureAll(settings().defaultMethod);
     })),
     vscode.commands.registerCommand('couplet.openSidecarAsText', () => withPanel(async (p) => {
       if (p.document.store.text() === null) {

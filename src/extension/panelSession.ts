@@ -37,8 +37,10 @@ export interface SessionPorts {
   knownLabels(): Promise<readonly string[]>;
   /** For the output channel: invalid messages and other things a developer wants to see. */
   log(message: string): void;
-  /** A notification the user sees (e.g. why an edit was refused). */
+  /** A warning the user sees (e.g. why an edit was refused). */
   notify(message: string): void;
+  /** An information message the user sees (e.g. a batch finished). */
+  inform(message: string): void;
   /** Batch work with progress and a cancel button. */
   withProgress<T>(title: string, work: (report: (done: number, total: number) => void, token: CancelToken) => Promise<T>): Promise<T>;
 }
@@ -187,8 +189,11 @@ export class PanelSession {
         report(n, indices.length);
         this.ports.post({ type: 'progress', task: 'measureAll', done: n, total: indices.length });
         try {
-          await this.measurement(i, method, dimension);
+          const r = await this.measurement(i, method, dimension);
           measured++;
+          const p = this.model.crossPeaks[i];
+          this.ports.log(`${this.model.fileName} peak ${i} (F2 ${p?.f2Ppm.toFixed(4)} / F1 ${p?.f1Ppm.toFixed(4)} ppm): ` +
+            `J = ${r.jHz.toFixed(2)} ± ${r.jSdHz.toFixed(2)} Hz, ${r.method} ${r.dimension}${r.flags.length ? `, flags: ${r.flags.join(', ')}` : ''}`);
         } catch (e) {
           if (e instanceof CancelledError) return true;
           failed.push(`peak ${i}: ${describe(e)}`);
@@ -197,6 +202,9 @@ export class PanelSession {
       this.ports.post({ type: 'progress', task: 'measureAll', done: indices.length, total: indices.length });
       return false;
     });
+    for (const f of failed) this.ports.log(`${this.model.fileName} ${f}`);
+    this.ports.inform(`${this.model.fileName}: ${measured} of ${indices.length} cross peaks measured` +
+      `${failed.length ? `, ${failed.length} failed` : ''}${cancelled ? ' (cancelled)' : ''}; values in the Couplet output, ready to accept.`);
     return { measured, failed, cancelled };
   }
 

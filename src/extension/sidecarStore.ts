@@ -111,6 +111,18 @@ export class VsSidecarStore implements SidecarStore, vscode.Disposable {
     if (await vscode.workspace.applyEdit(edit)) await doc.save();
   }
 
+  /**
+   * When the spectrum editor closes without saving, its unsaved edits would otherwise stay in a
+   * dirty document nobody sees. Reverted only when no tab shows the sidecar: text the chemist can
+   * see (and may have typed into) is left alone.
+   */
+  async discardUnseenChanges(): Promise<void> {
+    const doc = this.openDocument();
+    if (!doc?.isDirty) return;
+    const shown = vscode.window.tabGroups.all.some((g) => g.tabs.some((t) => t.input instanceof vscode.TabInputText && t.input.uri.toString() === this.uri.toString()));
+    if (!shown) await this.revert();
+  }
+
   dispose(): void {
     for (const s of this.subscriptions) s.dispose();
   }

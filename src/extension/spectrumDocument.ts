@@ -52,6 +52,7 @@ export class SpectrumDocument implements vscode.CustomDocument {
   dispose(): void {
     for (const f of this.disposeListeners) f();
     this.fits?.dispose();
-    this.store.dispose();
+    const store = this.store;
+    void store.discardUnseenChanges().finally(() => store.dispose());
   }
 }

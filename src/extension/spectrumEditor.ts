@@ -108,6 +108,7 @@ export class SpectrumEditorProvider implements vscode.CustomEditorProvider<Spect
       knownLabels: () => workspaceLabels(),
       log: (m) => this.output.appendLine(m),
       notify: (m) => void vscode.window.showWarningMessage(`Couplet: ${m}`),
+      inform: (m) => void vscode.window.showInformationMessage(`Couplet: ${m}`),
       withProgress: (title, work) => Promise.resolve(vscode.window.withProgress(
         { location: vscode.ProgressLocation.Notification, title, cancellable: true },
         (progress, token) => {

@@ -16,12 +16,13 @@ interface Harness {
   posted: ToWebview[];
   logs: string[];
   notes: string[];
+  infos: string[];
   store: SidecarStore & { value: string | null; writes: number };
   measured: number;
 }
 
-function harness(initial: string | null = null, model = testModel()): Harness {
-  const h = { posted: [] as ToWebview[], logs: [] as string[], notes: [] as string[], measured: 0 } as Harness;
+function harness(initial: string | null = null, model = testModel(), overrides: Partial<SessionPorts> = {}): Harness {
+  const h = { posted: [] as ToWebview[], logs: [] as string[], notes: [] as string[], infos: [] as string[], measured: 0 } as Harness;
   const store = {
     fileName: 'cosy.jdx.couplet.yaml', value: initial, writes: 0,
     text: () => store.value,
@@ -43,7 +44,9 @@ function harness(initial: string | null = null, model = testModel()): Harness {
     knownLabels: async () => ['H-1', 'H-2'],
     log: (m) => void h.logs.push(m),
     notify: (m) => void h.notes.push(m),
+    inform: (m) => void h.infos.push(m),
     withProgress: (_title, work) => work(() => undefined, { cancelled: false, onCancel: () => undefined }),
+    ...overrides,
   };
   h.session = new PanelSession(model, store, measurer, ports);
   return h;
@@ -167,6 +170,24 @@ describe('PanelSession', () => {
     const r = await h.session.measureAll('naive');
     expect(r).toEqual({ measured: 2, failed: [], cancelled: false });
     expect(h.posted.filter((m) => m.type === 'progress').map((m) => m.type === 'progress' && m.done)).toEqual([0, 1, 2]);
+    expect(h.logs).toHaveLength(2);
+    expect(h.logs[0]).toMatch(/^cosy\.jdx peak 1 \(F2 4\.\d{4} \/ F1 3\.\d{4} ppm\): J = \d+\.\d\d ± \d+\.\d\d Hz, naive F2/);
+    expect(h.infos).toEqual(['cosy.jdx: 2 of 2 cross peaks measured; values in the Couplet output, ready to accept.']);
+  });
+
+  it('stops measuring all when cancelled, reporting what was done', async () => {
+    let cancel: (() => void) | undefined;
+    const token = { cancelled: false, onCancel: (f: () => void) => void (cancel = f) };
+    // Cancel as soon as the first progress report arrives (the user pressing the cancel button).
+    const h2 = harness(null, testModel(), {
+      withProgress: (_t, work) => work(() => {
+        token.cancelled = true;
+        cancel?.();
+      }, token),
+    });
+    const r = await h2.session.measureAll('naive');
+    expect(r.cancelled).toBe(true);
+    expect(r.measured).toBeLessThan(2);
   });
 });
 
