@@ -123,12 +123,12 @@ function firstWidths(spec: ModelSpec, jApp: number): number[] {
 }
 
 /**
- * χ²(1) quantile at p = 0.001 (10.83, tables): the bar for adding a passive coupling. Stricter than
+ * χ² quantiles at p = 0.001 for 1..4 degrees of freedom (tables): the bar for adding passive couplings. Stricter than
  * the usual 0.01 because the new coupling is found by a search over many starting points (a
  * look-elsewhere effect the plain χ²(1) ignores), and a spurious passive coupling can swap roles
  * with the active one.
  */
-const CHI2_1_P001 = 10.83;
+const CHI2_P001 = [10.83, 13.82, 16.27, 18.47]; // degrees of freedom 1..4
 
 /** Parameters of the model with one more passive coupling: the old ones, then J and the new Jp given. */
 function startWithPassive(fit: FitResult, next: ModelSpec, j: number, jp: number): Float64Array {
@@ -170,30 +170,38 @@ export interface Selection {
  * ΔRSS / (σ² dᵀRd / dᵀd) follows χ²(1) even with correlated noise R (likelihood-ratio test).
  */
 export function selectModel(ctx: FitContext, line: LineModel, maxPassive: number, centre: number, jApp: number): Selection {
-  let spec: ModelSpec = { line, passives: 0 };
+  const first: ModelSpec = { line, passives: 0 };
   const w0 = Math.max(jApp, 1e-3);
-  let fit = bestOf(ctx, spec, gridStarts(ctx, spec, makeTheta(spec, centre, jApp, 1, []), w0, firstWidths(spec, jApp)));
+  const chain = [bestOf(ctx, first, gridStarts(ctx, first, makeTheta(first, centre, jApp, 1, []), w0, firstWidths(first, jApp)))];
   for (let k = 1; k <= maxPassive; k++) {
+    const prev = chain[k - 1] as FitResult;
     const next: ModelSpec = { line, passives: k };
-    const w = apparentFwhm(fit.spec, fit.theta);
-    const base = startWithPassive(fit, next, fit.theta[1] ?? 0, 0);
+    const w = apparentFwhm(prev.spec, prev.theta);
+    const base = startWithPassive(prev, next, prev.theta[1] ?? 0, 0);
     // Widths too: a smaller model may have bent the width to mimic the missing splitting.
-    const widths = [fit.theta[2] ?? 0, firstWidths(next, w)[1] ?? 0];
-    const cand = bestOf(ctx, next, gridStarts(ctx, next, base, w, widths));
+    const widths = [prev.theta[2] ?? 0, firstWidths(next, w)[1] ?? 0];
+    chain.push(bestOf(ctx, next, gridStarts(ctx, next, base, w, widths)));
+  }
+  // When even the largest model leaves more than the noise, judge every step against that
+  // residual level (the F-test form), so a still-incomplete model cannot veto the next coupling.
+  const scale = Math.max(1, uncertainty(ctx, chain[maxPassive] as FitResult).chi2Reduced);
+  const m = ctx.block.freqs.length;
+  let fit = chain[0] as FitResult;
+  for (let k = 1; k <= maxPassive; k++) {
+    // Compared with the best model so far (not only the previous one): an intermediate model can be
+    // a poor local fit while the next one, with all the couplings, is right.
+    const cand = chain[k] as FitResult;
     const d = Float64Array.from(cand.fitted, (v, i) => v - (fit.fitted[i] ?? 0));
     const dd = dot(d, d);
-    const m = ctx.block.freqs.length;
     const varFactor = dd > 0 ? dot(d, applyCorrelation(d, ctx.block.positions, m, ctx.rhoAlong, ctx.rhoAcross)) / dd : 1;
-    // When even the larger model leaves more than the noise, judge against that residual (an F-test).
-    const scale = Math.max(1, uncertainty(ctx, cand).chi2Reduced);
     const stat = (fit.rss - cand.rss) / (ctx.sigma ** 2 * varFactor * scale);
-    if (!(stat > CHI2_1_P001) || !resolvable(cand)) break;
-    spec = next;
-    fit = cand;
+    const df = k - fit.spec.passives;
+    if (stat > (CHI2_P001[df - 1] ?? Infinity) && resolvable(cand)) fit = cand;
   }
+  const spec = fit.spec;
   const notes = [
     `Passive couplings chosen by a likelihood-ratio test at p < 0.001 (chi-squared, 1 degree of freedom, ` +
-      `correlated noise accounted for, scaled by the residual when it exceeds the noise; a coupling within a quarter ` +
+      `correlated noise accounted for, scaled by the largest model's residual when it exceeds the noise; a coupling within a quarter ` +
       `linewidth of 0 or of J is not kept), 0 to ${maxPassive} tried; kept ${spec.passives}.`,
   ];
   return { fit, notes };

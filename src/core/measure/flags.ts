@@ -18,8 +18,11 @@ export interface FlagInput {
 export const FLAG_LIMITS = {
   /** J below half the apparent linewidth: the two antiphase lines largely cancel (design.md). */
   unresolvedRatio: 0.5,
-  /** Fewer than 3 points per apparent linewidth: the line shape itself is barely sampled. */
-  pointsPerLinewidth: 3,
+  /**
+   * Fewer than 1.5 points per apparent linewidth: coarser than anything the accuracy study
+   * validated (bench/accuracy.md reaches 1.75 points per linewidth with honest sigma).
+   */
+  pointsPerLinewidth: 1.5,
   /** A stated σ below a tenth of a point, with an assumed line shape, rests on that assumption. */
   sdPerPoint: 0.1,
   /** Shift difference over J below 10: first-order analysis may not hold (common practice). */
@@ -52,8 +55,8 @@ export function qualityFlags(q: FlagInput): { flags: QualityFlag[]; notes: strin
   if (coarse || tooFine) {
     flags.push('resolution_limited');
     notes.push(coarse
-      ? `Digital resolution ${q.hzPerPoint.toFixed(2)} Hz/point gives fewer than ${L.pointsPerLinewidth} points per linewidth; ` +
-        'the line shape is poorly sampled and the uncertainty may be optimistic. Zero-filling further helps the display, not the information.'
+      ? `Digital resolution ${q.hzPerPoint.toFixed(2)} Hz/point gives fewer than ${L.pointsPerLinewidth} points per linewidth, ` +
+        'coarser than the accuracy study covers; the line shape is poorly sampled and the uncertainty may be optimistic.'
       : `The stated uncertainty (${q.jSdHz.toFixed(3)} Hz) is below a tenth of a point (${q.hzPerPoint.toFixed(2)} Hz/point) ` +
         'while the line shape was assumed, not known; the precision holds only if that assumption does.');
   }

@@ -24,8 +24,9 @@ describe('qualityFlags', () => {
     expect(qualityFlags({ ...ok, dimension: 'F1', hzPerPoint: 2.4, linewidthHz: 12 }).flags).toEqual(['f1_coarse']);
     expect(qualityFlags({ ...ok, dimension: 'F1', hzPerPoint: 2.3, linewidthHz: 12 }).flags).toEqual([]);
   });
-  it('resolution_limited with fewer than 3 points per linewidth, or a sub-0.1-point sigma from an assumed line shape', () => {
-    expect(qualityFlags({ ...ok, hzPerPoint: 1.5 }).flags).toEqual(['resolution_limited']);
+  it('resolution_limited with fewer than 1.5 points per linewidth, or a sub-0.1-point sigma from an assumed line shape', () => {
+    expect(qualityFlags({ ...ok, hzPerPoint: 2.7 }).flags).toEqual(['resolution_limited']);
+    expect(qualityFlags({ ...ok, hzPerPoint: 2.6 }).flags).toEqual([]);
     expect(qualityFlags({ ...ok, jSdHz: 0.05, lineshapeAssumed: true }).flags).toEqual(['resolution_limited']);
     expect(qualityFlags({ ...ok, jSdHz: 0.05, lineshapeAssumed: false }).flags).toEqual([]);
   });
