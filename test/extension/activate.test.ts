@@ -1,0 +1,74 @@
+/**
+ * The bundled extension activates against a minimal stand-in for the `vscode` module and registers
+ * what package.json promises. What is recorded is only what activate() passes to the API; the
+ * API's meaning (registerCustomEditorProvider options, registerCommand) is from VS Code's API
+ * reference, https://code.visualstudio.com/api/references/vscode-api. Opening a sample in a real
+ * VS Code is the end-to-end suite's job (issue 4).
+ */
+import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import Module, { createRequire } from 'node:module';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { build } from 'esbuild';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+
+const root = join(__dirname, '..', '..');
+let dir = '';
+let bundle = '';
+beforeAll(async () => {
+  dir = mkdtempSync(join(tmpdir(), 'couplet-host-'));
+  bundle = join(dir, 'extension.js');
+  await build({ entryPoints: [join(root, 'src', 'extension', 'extension.ts')], outfile: bundle, bundle: true, platform: 'node', format: 'cjs', external: ['vscode'], logLevel: 'error' });
+});
+afterAll(() => rmSync(dir, { recursive: true, force: true }));
+
+interface Recorded {
+  commands: string[];
+  editors: { viewType: string; options: unknown }[];
+  disposed: number;
+}
+
+function fakeVscode(rec: Recorded): Record<string, unknown> {
+  const disposable = { dispose: () => void rec.disposed++ };
+  class EventEmitter {
+    event = (): typeof disposable => disposable;
+    fire(): void {}
+    dispose(): void {}
+  }
+  return {
+    EventEmitter,
+    DiagnosticSeverity: { Error: 0, Warning: 1, Information: 2, Hint: 3 },
+    window: {
+      createOutputChannel: () => ({ appendLine: () => undefined, show: () => undefined, dispose: () => undefined }),
+      registerCustomEditorProvider: (viewType: string, _p: unknown, options: unknown) => (rec.editors.push({ viewType, options }), disposable),
+    },
+    languages: { createDiagnosticCollection: () => ({ set: () => undefined, delete: () => undefined, dispose: () => undefined }) },
+    commands: { registerCommand: (id: string) => (rec.commands.push(id), disposable) },
+  };
+}
+
+/** Loads the bundle with `require('vscode')` answered by the stand-in (as the extension host does with the real one). */
+function loadWithFake(rec: Recorded): { activate(ctx: unknown): void } {
+  const loader = Module as unknown as { _load(request: string, parent: unknown, isMain: boolean): unknown };
+  const original = loader._load;
+  loader._load = (request, parent, isMain) => (request === 'vscode' ? fakeVscode(rec) : original(request, parent, isMain));
+  try {
+    return createRequire(bundle)(bundle) as { activate(ctx: unknown): void };
+  } finally {
+    loader._load = original;
+  }
+}
+
+describe('activate', () => {
+  it('registers the spectrum editor and every command package.json contributes', () => {
+    const rec: Recorded = { commands: [], editors: [], disposed: 0 };
+    const subscriptions: { dispose(): void }[] = [];
+    loadWithFake(rec).activate({ subscriptions, extensionPath: root, extensionUri: { fsPath: root } });
+    const pkg = JSON.parse(readFileSync(join(root, 'package.json'), 'utf8')) as { contributes: { commands: { command: string }[] } };
+    expect(rec.commands.sort()).toEqual(pkg.contributes.commands.map((c) => c.command).sort());
+    // No webviewOptions.retainContextWhenHidden: the panel restores its view with getState/setState.
+    expect(rec.editors).toEqual([{ viewType: 'couplet.spectrum', options: { supportsMultipleEditorsPerDocument: true } }]);
+    // Everything registered is handed to VS Code for disposal on deactivate.
+    expect(subscriptions.length).toBe(rec.commands.length + 3);
+  });
+});
