@@ -68,6 +68,12 @@ export function registerCommands(provider: SpectrumEditorProvider, output: vscod
       }
       await vscode.window.showTextDocument(p.document.store.uri, { viewColumn: vscode.ViewColumn.Beside, preview: false });
     })),
+    vscode.commands.registerCommand('couplet.recordDataHash', () => withPanel(async (p) => {
+      const answer = await vscode.window.showWarningMessage(
+        `${p.session.model.fileName} differs from the file its sidecar was made for. Record its new hash, keeping the picks and couplings as they are?`,
+        { modal: true, detail: 'Do this only after checking that the picks still fit the changed data.' }, 'Record New Hash');
+      if (answer === 'Record New Hash') await p.session.recordDataHash();
+    })),
     vscode.commands.registerCommand('couplet.acceptAt', (args: unknown) => withPanel(async (p) => {
       if (!isAcceptAtArgs(args)) throw new Error('couplet.acceptAt needs { f2Ppm, f1Ppm?, labels?, method?, dimension? }');
       const index = nearestPeakIndex(p.session.model, args.f2Ppm, args.f1Ppm);

@@ -4,6 +4,7 @@
  * the ports below; tests supply fakes.
  */
 import type { CrossPeakInput, Measurement, MeasureOptions } from '../core/measure';
+import { applyEdits, setDataHash } from '../core/sidecar';
 import { parseFromWebview, type FromWebview, type ToWebview, type ViewSettings } from '../protocol';
 import { CancelledError, FitFailedError } from './fitClient';
 import { couplingValues, measurementView } from './measurementView';
@@ -174,6 +175,24 @@ export class PanelSession {
     });
     if (ok && values && !coupled) this.pending.set(pickId, values);
     return ok;
+  }
+
+  /**
+   * Records the data file's current hash in the sidecar, the one way out of a hash mismatch once
+   * the chemist has confirmed the picks still fit the changed data. Refused for any other problem.
+   */
+  async recordDataHash(): Promise<boolean> {
+    const text = this.store.text();
+    const errors = this.state().diagnostics.filter((d) => d.severity === 'error');
+    if (text === null || errors.length === 0) return this.refuse(`${this.store.fileName} already matches ${this.model.fileName}; nothing to record`);
+    const other = errors.find((d) => d.code !== 'data-hash-mismatch');
+    if (other) return this.refuse(`${other.message} — fix this first`);
+    try {
+      const after = applyEdits(text, setDataHash(text, this.model.sha256, this.store.fileName));
+      return (await this.store.write(after, 'Record data hash')) || this.refuse(`VS Code did not apply the change to ${this.store.fileName}`);
+    } catch (e) {
+      return this.refuse(describe(e));
+    }
   }
 
   /** Every cross peak, one after the other in the worker, with progress and cancel. */

@@ -144,13 +144,13 @@ describe('PanelSession', () => {
   });
 
   it('does not write a sidecar whose data hash does not match the spectrum, and says where', async () => {
-    const other = `schema: couplet-sidecar/1\ndata:\n  file: cosy.jdx\n  sha256: ${'0'.repeat(64)}\n\npicks: []\n\ncouplings: []\n`;
+    const other = `schema: couplet-sidecar/1\ndata:\n  file: cosy.jdx\n  sha256: ${'f0'.repeat(32)}\n\npicks: []\n\ncouplings: []\n`;
     h = harness(other);
     await h.session.receive({ type: 'accept', peakIndex: 1, method: 'fit', dimension: 'F2', labels: ['H-1', 'H-2'] });
     expect(h.store.value).toBe(other);
     expect(h.store.writes).toBe(0);
     expect(h.notes).toHaveLength(1);
-    expect(h.notes[0]).toMatch(/^cosy\.jdx\.couplet\.yaml:4: .*Couplet will not write it until then\.$/);
+    expect(h.notes[0]).toMatch(/^cosy\.jdx\.couplet\.yaml:4: data\.sha256: cosy\.jdx has changed since these picks were made .*Couplet will not write it until then\.$/);
     expect(last(h)).toEqual({ type: 'error', message: h.notes[0] });
   });
 
@@ -208,5 +208,29 @@ describe('PanelSession on a 1D spectrum', () => {
     await h.session.receive({ type: 'accept', peakIndex: 0, method: 'fit', dimension: 'F2', labels: ['H-3'] });
     expect(h.store.value).toContain('  - id: p-3.0000\n    f2_ppm: 3.0000\n    label: H-3\n    kind: multiplet\n');
     expect(h.store.value).toContain('couplings: []\n');
+  });
+});
+
+describe('PanelSession.recordDataHash', () => {
+  const stale = (sha: string, extra = ''): string => `schema: couplet-sidecar/1\ndata:\n  file: cosy.jdx\n  sha256: ${sha}\n\npicks: []\n\ncouplings: []\n${extra}`;
+
+  it('writes the spectrum hash over a mismatching one, changing only that line', async () => {
+    const h = harness(stale('f0'.repeat(32)));
+    expect(await h.session.recordDataHash()).toBe(true);
+    expect(h.store.value).toBe(stale(testModel().sha256));
+    expect(h.session.state().view.blocked).toBeNull();
+  });
+
+  it('refuses when the sidecar has another error too (here a syntax error), naming it', async () => {
+    const h = harness(stale('f0'.repeat(32), 'note: [unclosed\n'));
+    expect(await h.session.recordDataHash()).toBe(false);
+    expect(h.notes[0]).toMatch(/^cosy\.jdx\.couplet\.yaml:\d+: .* — fix this first$/);
+    expect(h.store.writes).toBe(0);
+  });
+
+  it('refuses when there is nothing to record', async () => {
+    const h = harness(stale(testModel().sha256));
+    expect(await h.session.recordDataHash()).toBe(false);
+    expect(h.notes).toEqual(['cosy.jdx.couplet.yaml already matches cosy.jdx; nothing to record']);
   });
 });
