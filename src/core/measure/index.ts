@@ -68,6 +68,22 @@ function linewidthWithSd(fit: FitResult, varWidth: number): [number, number] {
 }
 
 /**
+ * When the partner is a group of n equivalent protons, n - 1 of them split A in-phase by the same J,
+ * the inner lines cancel, and the F2 trace equals an antiphase pair at n J (n = 2: exactly, with no
+ * passive; n = 3: with a passive of J). No fit of this trace can tell; say so when it is possible.
+ */
+function equivalentPartnerNotes(jHz: number, passiveHz: number[], linewidthHz: number): string[] {
+  const half = passiveHz.find((p) => Math.abs(p - jHz / 2) < 0.25 * linewidthHz);
+  const generic = 'If the partner is a CH2 or CH3 group (equivalent protons), the inner lines of this cross peak cancel and ' +
+    'the splitting measured is a multiple of J: for a CH2 partner the trace is an antiphase pair at 2J. Check the multiplicity ' +
+    'of the partner, or measure the symmetric cross peak.';
+  return half !== undefined
+    ? [`A passive coupling of ${half.toFixed(2)} Hz is half the active one: this is the pattern of a CH3 partner with J = ` +
+      `${half.toFixed(2)} Hz (measured splitting 2J). ${generic}`]
+    : [generic];
+}
+
+/**
  * J of the active coupling at a DQF-COSY cross peak, from the traces through it along F2 (default)
  * or F1. The 'fit' method models the multiplet (module fit.ts); 'naive' reads the antiphase
  * extrema (kept for comparison). Throws MeasureError when there is nothing to measure.
@@ -117,6 +133,7 @@ export function measureCrossPeak(s: Spectrum2D, peak: CrossPeakInput, opts: Meas
   }
   const passiveHz = Array.from({ length: method === 'fit' ? fit.spec.passives : 0 }, (_, i) => Math.abs(fit.theta[passiveIndex(fit.spec, i)] ?? 0));
   const passiveSdHz = passiveHz.map((_, i) => sd(unc.cov, passiveIndex(fit.spec, i)));
+  notes.push(...equivalentPartnerNotes(jHz, passiveHz, linewidthHz));
   const q = qualityFlags({
     jHz, jSdHz, linewidthHz, hzPerPoint: hzPt, dimension,
     shiftDiffHz: (peak.f1Ppm - peak.f2Ppm) * s.f2.observeMhz,

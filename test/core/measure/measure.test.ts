@@ -70,6 +70,20 @@ describe('measureCrossPeak on simulated DQF-COSY cross peaks (simulator in src/c
     expect(Math.abs(m.jHz - 8)).toBeLessThan(3 * m.jSdHz);
   });
 
+  it('cannot tell a CH3 partner from a doubled J (the inner lines cancel) and says so in a note', () => {
+    // A coupled to three equivalent X: A's trace is antiphase in J with two in-phase J from the other
+    // X protons = lines -1, -1, +1, +1 at -3J/2, -J/2, J/2, 3J/2: an antiphase 2J with a passive J
+    // (product of the splittings; any NMR text on DQF-COSY multiplets).
+    const f: DimensionProcessing = { acquiredPoints: 180, spectralWidthHz: 600, carrierHz: 0, size: 1024, window: { kind: 'sine', power: 2, shiftDeg: 90 } };
+    const f1: DimensionProcessing = { acquiredPoints: 64, spectralWidthHz: 600, carrierHz: 0, size: 128, window: { kind: 'sine', power: 2, shiftDeg: 90 } };
+    const system = { observeMhz: 600, spins: [{ label: 'A', ppm: 0.3, linewidthHz: 1 }, { label: 'X', ppm: -0.3, linewidthHz: 1, count: 3 }], couplings: [{ a: 'A', b: 'X', jHz: 7 }] };
+    const sim = simulateCrossPeakRegion(system, 'X', 'A', { f1, f2: f, rows: 24, cols: 160, noise: { seed: 4, snr: 500 } });
+    const m = measureCrossPeak(sim.spectrum, { f1Ppm: -0.3, f2Ppm: 0.3 });
+    expect(m.jHz).toBeCloseTo(14, 0);
+    expect(m.passiveHz.some((p) => Math.abs(p - 7) < 0.3)).toBe(true);
+    expect(m.notes.join(' ')).toMatch(/CH3 partner with J = 7\.\d\d Hz/);
+  });
+
   it('says when the processing is unknown and falls back to a fitted Lorentz-Gauss line', () => {
     const { spectrum, peak, jHz } = simulateCase({ ...base, seed: 10 });
     const bare = make2D('no processing recorded', spectrum.data, spectrum.f1, spectrum.f2);
