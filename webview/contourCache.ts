@@ -36,7 +36,7 @@ export class ContourCache {
 
   put(plan: TilePlan, tile: TileData, magnitudes: readonly number[], levelsKey: string): CacheEntry {
     const negated = negate(tile.data);
-    const e: CacheEntry = { plan, tile, negated, maxPos: maxOf(tile.data), maxNeg: maxOf(negated), levelsKey, queue: [], done: [] };
+    const e: CacheEntry = { plan, tile, negated, maxPos: maxOf(tile.data), maxNeg: maxOf(negated), levelsKey: '', queue: [], done: [] };
     setLevels(e, magnitudes, levelsKey);
     this.entries.delete(plan.key);
     this.entries.set(plan.key, e);
@@ -60,7 +60,7 @@ export class ContourCache {
 
 /** New levels for an entry: its geometry is recomputed (the tile data is kept). */
 export function setLevels(e: CacheEntry, magnitudes: readonly number[], levelsKey: string): void {
-  if (e.levelsKey === levelsKey && (e.done.length > 0 || e.queue.length > 0)) return;
+  if (e.levelsKey === levelsKey) return;
   e.levelsKey = levelsKey;
   e.done = [];
   e.queue = [];

@@ -50,6 +50,8 @@ export class Panel {
   selected: number | null;
   measurement: MeasurementView | null = null;
   box: Frame['box'] = null;
+  /** 1D: fit the intensity axis to the visible data when the next tile arrives (after F2 zooms). */
+  autoY = true;
   readonly extent: Extent;
   private readonly cache = new ContourCache();
   private magnitudes: readonly number[] = [];
@@ -100,8 +102,10 @@ export class Panel {
   }
 
   setSidecar(s: SidecarView): void {
+    const wasBlocked = this.sidecar.blocked;
     this.sidecar = s;
-    this.status(s.blocked ? `Sidecar not editable: ${s.blocked}` : '');
+    if (s.blocked) this.status(`Sidecar not editable: ${s.blocked}`);
+    else if (wasBlocked) this.status('Sidecar readable again.');
     this.redraw();
   }
 
@@ -127,7 +131,28 @@ export class Panel {
     return this.layout;
   }
 
-  setView(v: View): void {
+  /** 1D: intensity range of the visible part of a tile, with a margin. */
+  private fitIntensity(e: CacheEntry): void {
+    const r = e.plan.region;
+    const k = (r.col1 - r.col0 + 1) / e.tile.cols;
+    const w = this.pointWindow();
+    let lo = Infinity, hi = -Infinity;
+    for (let j = 0; j < e.tile.cols; j++) {
+      const c = r.col0 + (j + 0.5) * k - 0.5;
+      if (c < w.col0 || c > w.col1) continue;
+      const v = e.tile.data[j] ?? 0;
+      lo = Math.min(lo, v);
+      hi = Math.max(hi, v);
+    }
+    if (!(hi > lo)) return;
+    const pad = 0.08 * (hi - lo);
+    this.view = clampView({ x: this.view.x, y: [hi + pad, lo - pad] }, this.extent);
+    this.autoY = false;
+    this.persist();
+  }
+
+  setView(v: View, autoY = this.meta.dims === 1 && (v.x[0] !== this.view.x[0] || v.x[1] !== this.view.x[1])): void {
+    this.autoY = autoY;
     this.view = clampView(v, this.extent);
     this.persist();
     this.redraw();
@@ -166,7 +191,9 @@ export class Panel {
     req.promise.then(
       (t) => {
         if (t.type !== 'tile') return this.status(`Unexpected reply "${t.type}" to a tile request.`);
-        this.cache.put(plan, { rows: t.rows, cols: t.cols, data: t.data }, this.magnitudes, this.levelsKey);
+        // A 1D tile is drawn as a line: no contour levels to compute.
+        const e = this.cache.put(plan, { rows: t.rows, cols: t.cols, data: t.data }, this.meta.dims === 2 ? this.magnitudes : [], this.levelsKey);
+        if (this.meta.dims === 1 && this.autoY) this.fitIntensity(e);
       },
       (e: unknown) => this.status(`Could not load the spectrum region: ${e instanceof Error ? e.message : String(e)}`),
     ).finally(() => {
@@ -178,7 +205,7 @@ export class Panel {
   /** The tiles to draw: the one for this view, plus the newest finished one while it is incomplete. */
   private tilesFor(plan: TilePlan, win: PointWindow): CacheEntry[] {
     const current = this.cache.get(plan.key);
-    if (current) setLevels(current, this.magnitudes, this.levelsKey);
+    if (current && this.meta.dims === 2) setLevels(current, this.magnitudes, this.levelsKey);
     const out: CacheEntry[] = current ? [current] : [];
     if (!current || current.queue.length > 0) {
       const stale = this.cache.recent().find((e) => e !== current && e.levelsKey === this.levelsKey && e.queue.length === 0 && (covers(e.plan.region, win) || !current));
@@ -251,9 +278,15 @@ export class Panel {
   }
 
   accept(labels: readonly string[]): void {
+    if (this.sidecar.blocked) return this.status(`Sidecar not editable: ${this.sidecar.blocked}`);
+    if (this.meta.dims === 1) {
+      // 1D: a multiplet is picked and labelled; there is no antiphase J to measure.
+      if (this.selected === null) return this.status('Select a multiplet first (click near it, or N / P).');
+      this.rpc.post({ type: 'accept', peakIndex: this.selected, method: this.method, dimension: 'F2', labels });
+      return this.status(`Picked multiplet ${this.selected}${labels.length ? ` as ${labels.join(', ')}` : ''}.`);
+    }
     const m = this.measurement;
     if (!m || m.peakIndex !== this.selected) return this.status('Measure the selected peak before accepting.');
-    if (this.sidecar.blocked) return this.status(`Sidecar not editable: ${this.sidecar.blocked}`);
     this.rpc.post({ type: 'accept', peakIndex: m.peakIndex, method: m.method, dimension: m.dimension, labels });
     this.status(`Accepted J = ${m.jHz.toFixed(this.settings.jDecimals)} Hz.`);
   }

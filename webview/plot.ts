@@ -130,6 +130,8 @@ function drawMarkers(ctx: CanvasRenderingContext2D, f: Frame, L: Layout, p: Pale
   ctx.fillStyle = p.pick;
   ctx.font = p.font.replace(/(\d+(\.\d+)?)px/, (_m, n: string) => `${Number(n) * d}px`);
   ctx.lineWidth = 1.5 * d;
+  ctx.textAlign = 'left';
+  ctx.textBaseline = 'middle';
   for (const k of f.picks) {
     const s = screenOf(f, L, k.f2Ppm, k.f1Ppm);
     ctx.beginPath();
@@ -137,7 +139,7 @@ function drawMarkers(ctx: CanvasRenderingContext2D, f: Frame, L: Layout, p: Pale
     ctx.lineTo(d * s.x, d * (s.y + 6)); ctx.lineTo(d * (s.x - 6), d * s.y);
     ctx.closePath();
     ctx.stroke();
-    if (k.label.length > 0) ctx.fillText(k.label.join(' / '), d * (s.x + 9), d * (s.y - 7));
+    if (k.label.length > 0) ctx.fillText(k.label.join(' / '), d * (s.x + 9), d * (s.y - 8));
   }
   const sel = f.peaks.find((k) => k.index === f.selected);
   if (sel) {

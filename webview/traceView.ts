@@ -46,11 +46,13 @@ export function drawTraces(canvas: HTMLCanvasElement, text: HTMLElement, m: Meas
     ctx.setLineDash([5, 3]);
     line(ctx, t.fitted, x0, cw, 16, top - 16, lo, hi);
     ctx.setLineDash([]);
-    // Residual on the same vertical scale as the trace, so its size reads against the peak.
-    const span = hi - lo;
+    // Residual at the same intensity per pixel as the trace above it, so its size reads against the peak.
+    const traceH = top - 16;
+    const resH = h - top - 4;
+    const half = ((hi - lo) * resH) / traceH / 2;
     ctx.strokeStyle = p.residual;
     ctx.lineWidth = 1;
-    line(ctx, t.residual, x0, cw, top, h - top - 4, -span / 6, span / 6);
+    line(ctx, t.residual, x0, cw, top, resH, -half, half);
     ctx.fillStyle = p.muted;
     ctx.textBaseline = 'top';
     ctx.textAlign = 'left';
