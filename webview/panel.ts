@@ -9,10 +9,11 @@ import { ContourCache, setLevels, step, type CacheEntry } from './contourCache';
 import type { Action } from './keys';
 import { contourLevels, levelsKey, levelUnit } from './levels';
 import { drawFrame, layoutFor, screenOf, type Frame, type Layout } from './plot';
-import { fullDomain, ppmToPoint, type View } from './scales';
+import { fullDomain, type View } from './scales';
 import { readPalette, type Palette } from './theme';
 import { covers, planTile, type PointWindow, type TilePlan } from './tiles';
 import { drawTraces } from './traceView';
+import { intensityDomain, pointWindowOf } from './viewWindow';
 import { boxZoom, centredOn, clampView, nearestOnScreen, pan, step as stepOrder, zoomAt, type Extent } from './viewModel';
 
 export interface Elements {
@@ -131,22 +132,11 @@ export class Panel {
     return this.layout;
   }
 
-  /** 1D: intensity range of the visible part of a tile, with a margin. */
+  /** 1D: intensity axis fitted to the visible part of a tile. */
   private fitIntensity(e: CacheEntry): void {
-    const r = e.plan.region;
-    const k = (r.col1 - r.col0 + 1) / e.tile.cols;
-    const w = this.pointWindow();
-    let lo = Infinity, hi = -Infinity;
-    for (let j = 0; j < e.tile.cols; j++) {
-      const c = r.col0 + (j + 0.5) * k - 0.5;
-      if (c < w.col0 || c > w.col1) continue;
-      const v = e.tile.data[j] ?? 0;
-      lo = Math.min(lo, v);
-      hi = Math.max(hi, v);
-    }
-    if (!(hi > lo)) return;
-    const pad = 0.08 * (hi - lo);
-    this.view = clampView({ x: this.view.x, y: [hi + pad, lo - pad] }, this.extent);
+    const y = intensityDomain(e.tile, e.plan.region, this.pointWindow());
+    if (!y) return;
+    this.view = clampView({ x: this.view.x, y }, this.extent);
     this.autoY = false;
     this.persist();
   }
@@ -168,15 +158,7 @@ export class Panel {
   }
 
   private pointWindow(): PointWindow {
-    const m = this.meta;
-    const span = (a: typeof m.f2, d: readonly [number, number]): [number, number] => {
-      const p0 = ppmToPoint(a, d[0]);
-      const p1 = ppmToPoint(a, d[1]);
-      return [Math.max(0, Math.min(p0, p1)), Math.min(a.points - 1, Math.max(p0, p1))];
-    };
-    const [col0, col1] = span(m.f2, this.view.x);
-    const [row0, row1] = m.f1 ? span(m.f1, this.view.y) : [0, 0];
-    return { row0, row1, col0, col1 };
+    return pointWindowOf(this.meta, this.view);
   }
 
   private plan(): TilePlan {
