@@ -80,7 +80,13 @@ export class PanelSession {
       this.ports.log(`ignored a message from the ${this.model.fileName} panel: ${parsed.error}`);
       return;
     }
-    await this.handle(parsed.value);
+    try {
+      await this.handle(parsed.value);
+    } catch (e) {
+      // A bug must not leave the panel waiting in silence: say what failed, keep the host running.
+      this.ports.log(`${this.model.fileName}: handling "${parsed.value.type}" failed: ${e instanceof Error ? e.stack ?? e.message : String(e)}`);
+      this.ports.post({ type: 'error', message: `Couplet could not handle "${parsed.value.type}": ${describe(e)}` });
+    }
   }
 
   private async handle(m: FromWebview): Promise<void> {
@@ -97,7 +103,11 @@ export class PanelSession {
   }
 
   private async init(): Promise<void> {
-    const knownLabels = await this.ports.knownLabels();
+    // Completion is a convenience: a workspace that cannot be searched must not keep the plot from showing.
+    const knownLabels = await this.ports.knownLabels().catch((e: unknown) => {
+      this.ports.log(`could not collect atom labels from the workspace: ${describe(e)}`);
+      return [];
+    });
     this.ports.post({
       type: 'init', spectrum: spectrumMeta(this.model), settings: this.ports.settings(),
       peaks: peakViews(this.model), sidecar: this.state().view, knownLabels: [...knownLabels],

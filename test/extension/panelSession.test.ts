@@ -77,6 +77,20 @@ describe('PanelSession', () => {
     expect(m.knownLabels).toEqual(['H-1', 'H-2']);
   });
 
+  it('still answers ready when the workspace label scan fails, logging why', async () => {
+    const h2 = harness(null, testModel(), { knownLabels: () => Promise.reject(new Error('search is disabled')) });
+    await h2.session.receive({ type: 'ready' });
+    expect(last(h2)).toMatchObject({ type: 'init', knownLabels: [] });
+    expect(h2.logs).toEqual(['could not collect atom labels from the workspace: search is disabled']);
+  });
+
+  it('turns an unexpected failure into an error message instead of silence', async () => {
+    const h2 = harness(null, testModel(), { settings: () => { throw new Error('boom'); } });
+    await h2.session.receive({ type: 'ready' });
+    expect(last(h2)).toEqual({ type: 'error', message: 'Couplet could not handle "ready": boom' });
+    expect(h2.logs[0]).toMatch(/^cosy\.jdx: handling "ready" failed: Error: boom/);
+  });
+
   it('ignores and logs a message that fails validation, posting nothing', async () => {
     await h.session.receive({ type: 'measure', id: 1, peakIndex: -1, method: 'fit', dimension: 'F2' });
     await h.session.receive({ type: 'eraseAll' });
