@@ -11,7 +11,13 @@ import { pan, zoomAt } from './viewModel';
 /** Pointer travel below which a press counts as a click, CSS px. */
 const CLICK_PX = 4;
 
-export function bindInput(canvas: HTMLCanvasElement, readout: HTMLElement, current: () => Panel | null, onLabelKey: () => void, onAcceptKey: () => void): void {
+export interface KeyHandlers {
+  readonly label: () => void;
+  readonly accept: () => void;
+  readonly removePick: () => void;
+}
+
+export function bindInput(canvas: HTMLCanvasElement, readout: HTMLElement, current: () => Panel | null, keys: KeyHandlers): void {
   let down: { x: number; y: number; box: boolean; moved: boolean } | null = null;
   const local = (panel: Panel, e: MouseEvent): { x: number; y: number } => {
     const r = canvas.getBoundingClientRect();
@@ -71,7 +77,8 @@ export function bindInput(canvas: HTMLCanvasElement, readout: HTMLElement, curre
       const hit = panel.peakAt(p.x + L.left, p.y + L.top);
       if (hit !== null) {
         panel.select(hit);
-        panel.measure();
+        // Only cross peaks carry an antiphase J; a diagonal peak or a 1D multiplet is just selected.
+        if (panel.peaks.find((k) => k.index === hit)?.kind === 'cross') panel.measure();
       }
     }
     down = null;
@@ -105,8 +112,7 @@ export function bindInput(canvas: HTMLCanvasElement, readout: HTMLElement, curre
     const a = keyAction(e);
     if (!a || !panel) return;
     e.preventDefault();
-    if (a.kind === 'label') onLabelKey();
-    else if (a.kind === 'accept') onAcceptKey();
+    if (a.kind === 'label' || a.kind === 'accept' || a.kind === 'removePick') keys[a.kind]();
     else panel.act(a);
   });
 }

@@ -6,7 +6,7 @@
 import type { CommandMessage } from '../src/protocol';
 
 export type Action =
-  | { readonly kind: 'nextPeak' | 'previousPeak' | 'measure' | 'accept' | 'label' | 'zoomToPeak' | 'resetZoom' | 'cancel' }
+  | { readonly kind: 'nextPeak' | 'previousPeak' | 'measure' | 'accept' | 'label' | 'zoomToPeak' | 'resetZoom' | 'cancel' | 'removePick' }
   | { readonly kind: 'pan'; readonly dx: number; readonly dy: number }
   | { readonly kind: 'zoom'; readonly factor: number };
 
@@ -40,6 +40,7 @@ export function keyAction(e: KeyLike): Action | null {
     case 'z': case 'Z': return { kind: 'zoomToPeak' };
     case '0': case 'Home': return { kind: 'resetZoom' };
     case 'Escape': return { kind: 'cancel' };
+    case 'Delete': case 'Backspace': return { kind: 'removePick' };
     default: return null;
   }
 }

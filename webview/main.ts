@@ -109,7 +109,19 @@ window.addEventListener('message', (e: MessageEvent<unknown>) => {
   onMessage(parsed.value);
 });
 
-bindInput(el.canvas, el.readout, () => panel, () => panel && labelKey(panel, toolbar), () => panel && acceptKey(panel, toolbar));
+function removePick(p: Panel): void {
+  const pick = p.pickFor(p.selected);
+  if (!pick) return p.status('The selected peak has no pick to remove.');
+  if (p.sidecar.blocked) return p.status(`Sidecar not editable: ${p.sidecar.blocked}`);
+  rpc.post({ type: 'removePick', pickId: pick.id });
+  p.status(`Removed ${pick.id} (undo brings it back).`);
+}
+
+bindInput(el.canvas, el.readout, () => panel, {
+  label: () => panel && labelKey(panel, toolbar),
+  accept: () => panel && acceptKey(panel, toolbar),
+  removePick: () => panel && removePick(panel),
+});
 
 const contoursFromToolbar = (): void => {
   if (!panel) return;
@@ -125,6 +137,7 @@ toolbar.dimension.onChange((v) => { if (panel) { panel.dimension = v; panel.pers
 toolbar.onClick(toolbar.reset, () => panel?.act({ kind: 'resetZoom' }));
 toolbar.onClick(toolbar.measure, () => panel?.measure());
 toolbar.onClick(toolbar.accept, () => panel && acceptKey(panel, toolbar));
+toolbar.onClick(toolbar.remove, () => panel && removePick(panel));
 toolbar.onClick(toolbar.measureAll, () => panel && rpc.post({ type: 'measureAll', method: panel.method }));
 toolbar.label.addEventListener('keydown', (e) => {
   if (e.key === 'Enter' && panel) applyLabel(panel, toolbar);

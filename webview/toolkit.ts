@@ -26,6 +26,7 @@ export interface Toolbar {
   readonly measure: HTMLElement;
   readonly accept: HTMLElement;
   readonly measureAll: HTMLElement;
+  readonly remove: HTMLElement;
   readonly lowest: NumberField;
   readonly levels: NumberField;
   readonly spacing: NumberField;
@@ -95,6 +96,7 @@ export function createToolbar(container: HTMLElement): Toolbar {
   const measure = button('Measure', 'Measure J at the selected peak (M)', 'primary');
   const accept = button('Accept', 'Store the shown J in the sidecar (A)', 'primary');
   const measureAll = button('Measure all', 'Measure every cross peak');
+  const remove = button('Remove pick', 'Remove the pick on the selected peak (Delete)');
   const lowest = numberField('Lowest (x noise)', 'Lowest contour level in multiples of the noise', 5);
   const levels = numberField('Levels', 'Number of contour levels on each sign', 3);
   const spacing = numberField('Spacing', 'Ratio between successive contour levels', 4);
@@ -119,10 +121,10 @@ export function createToolbar(container: HTMLElement): Toolbar {
     group(reset),
     group(lowest.element, levels.element, spacing.element),
     group(method.element, dimension.element, measure, accept, measureAll),
-    group(label, list),
+    group(label, list, remove),
   );
   return {
-    reset, measure, accept, measureAll, lowest, levels, spacing, method, dimension, label,
+    reset, measure, accept, measureAll, remove, lowest, levels, spacing, method, dimension, label,
     setKnownLabels(labels) {
       list.replaceChildren(...labels.map((l) => {
         const o = document.createElement('option');

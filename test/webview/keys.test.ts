@@ -29,3 +29,10 @@ describe('parseLabels', () => {
     expect(parseLabels('')).toEqual([]);
   });
 });
+
+describe('removing a pick', () => {
+  it('is on Delete and Backspace', () => {
+    expect(key('Delete')).toEqual({ kind: 'removePick' });
+    expect(key('Backspace')).toEqual({ kind: 'removePick' });
+  });
+});
