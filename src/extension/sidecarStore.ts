@@ -93,7 +93,8 @@ export class VsSidecarStore implements SidecarStore, vscode.Disposable {
   /** Saves the document (nothing to do when it is not open or not dirty). */
   async save(): Promise<boolean> {
     const doc = this.openDocument();
-    return doc ? doc.save() : true;
+    // Saving a clean document may report false although nothing is wrong (e.g. after undoing to the saved text).
+    return doc?.isDirty ? doc.save() : true;
   }
 
   /** Back to the text on disk: the document is replaced by it and saved, so it is no longer dirty. */
