@@ -1,6 +1,6 @@
 /**
- * Entry for the full accuracy study: runs the grid of bench/accuracyStudy.ts and writes the table to
- * bench/accuracy.md (path given as the first argument, default bench/accuracy.md).
+ * The full accuracy study: runs the grid of bench/accuracyStudy.ts and writes the report to
+ * bench/accuracy.md. Run with `npm run bench -- --accuracy` (bench/index.ts).
  */
 import { writeFileSync } from 'node:fs';
 import { criteriaTable, FULL_GRID, markdownTable, runAccuracyStudy, studyGrid } from './accuracyStudy';
@@ -37,6 +37,3 @@ export function writeAccuracyReport(outPath = 'bench/accuracy.md'): void {
   ].join('\n');
   writeFileSync(outPath, text);
 }
-
-const invokedDirectly = typeof require !== 'undefined' && typeof module !== 'undefined' && require.main === module;
-if (invokedDirectly) writeAccuracyReport(process.argv[2]);

@@ -2,9 +2,8 @@
  * `npm run bench`: speed against same-run baselines (ratios are the numbers to compare).
  * `npm run bench -- --accuracy`: also the full accuracy study, written to bench/accuracy.md.
  */
-import { writeFileSync } from 'node:fs';
 import { resolve } from 'node:path';
-import { markdownTable, runAccuracyStudy } from './accuracyStudy';
+import { writeAccuracyReport } from './accuracy';
 import { runJcampBench } from './jcampParse';
 import { runPipelineBench } from './pipeline';
 
@@ -19,12 +18,9 @@ function main(): void {
   }
   if (process.argv.includes('--accuracy')) {
     const t0 = performance.now();
-    const { groups } = runAccuracyStudy();
-    const table = markdownTable(groups);
     const out = resolve(process.cwd(), 'bench', 'accuracy.md');
-    writeFileSync(out, table);
-    console.log(`\naccuracy study (${((performance.now() - t0) / 1000).toFixed(0)} s) written to ${out}\n`);
-    console.log(table);
+    writeAccuracyReport(out);
+    console.log(`\naccuracy study (${((performance.now() - t0) / 1000).toFixed(0)} s) written to ${out}`);
   }
 }
 
