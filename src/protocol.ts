@@ -256,7 +256,8 @@ const FROM_WEBVIEW: Record<FromWebview['type'], (m: Obj) => string | null> = {
 /** Validates a message from the webview; the error names the type and the field at fault. */
 export function parseFromWebview(raw: unknown): Parsed<FromWebview> {
   if (!isObj(raw) || !isStr(raw.type)) return { ok: false, error: 'message is not an object with a string "type"' };
-  const check = (FROM_WEBVIEW as Record<string, ((m: Obj) => string | null) | undefined>)[raw.type];
+  // Own keys only: a type such as "valueOf" must not reach Object.prototype's functions.
+  const check = Object.hasOwn(FROM_WEBVIEW, raw.type) ? (FROM_WEBVIEW as Record<string, (m: Obj) => string | null>)[raw.type] : undefined;
   if (!check) return { ok: false, error: `unknown message type "${raw.type}"` };
   const bad = check(raw);
   return bad ? { ok: false, error: `message "${raw.type}": field "${bad}" is missing or invalid` } : { ok: true, value: raw as unknown as FromWebview };
@@ -275,7 +276,7 @@ const TO_WEBVIEW: Record<ToWebview['type'], (m: Obj) => string | null> = {
 /** Validates a message from the host (the webview checks what it receives too). */
 export function parseToWebview(raw: unknown): Parsed<ToWebview> {
   if (!isObj(raw) || !isStr(raw.type)) return { ok: false, error: 'message is not an object with a string "type"' };
-  const check = (TO_WEBVIEW as Record<string, ((m: Obj) => string | null) | undefined>)[raw.type];
+  const check = Object.hasOwn(TO_WEBVIEW, raw.type) ? (TO_WEBVIEW as Record<string, (m: Obj) => string | null>)[raw.type] : undefined;
   if (!check) return { ok: false, error: `unknown message type "${raw.type}"` };
   const bad = check(raw);
   return bad ? { ok: false, error: `message "${raw.type}": field "${bad}" is missing or invalid` } : { ok: true, value: raw as unknown as ToWebview };

@@ -1,0 +1,63 @@
+/** Validation of messages crossing the host/webview boundary (src/protocol.ts). */
+import { describe, expect, it } from 'vitest';
+import { parseFromWebview, parseToWebview, type FromWebview } from '../../src/protocol';
+
+const region = { row0: 0, row1: 9, col0: 2, col1: 5 };
+const valid: FromWebview[] = [
+  { type: 'ready' },
+  { type: 'requestTile', id: 0, region, maxRows: 1, maxCols: 800 },
+  { type: 'measure', id: 3, peakIndex: 0, method: 'naive', dimension: 'F1' },
+  { type: 'accept', peakIndex: 2, method: 'fit', dimension: 'F2', labels: [] },
+  { type: 'label', pickId: 'p-4.2000-3.8500', labels: ['H-1', 'H-2'] },
+  { type: 'removePick', pickId: 'p-1' },
+  { type: 'measureAll', method: 'fit' },
+  { type: 'cancel' },
+];
+
+describe('parseFromWebview', () => {
+  it.each(valid)('accepts a well-formed "$type"', (m) => {
+    expect(parseFromWebview(m)).toEqual({ ok: true, value: m });
+  });
+
+  it.each([
+    [{ type: 'requestTile', id: 1, region: { ...region, row1: -1 }, maxRows: 1, maxCols: 1 }, 'region'],
+    [{ type: 'requestTile', id: 1, region: { ...region, col0: 6 }, maxRows: 1, maxCols: 1 }, 'region'],
+    [{ type: 'requestTile', id: 1, region, maxRows: 0, maxCols: 1 }, 'maxRows'],
+    [{ type: 'requestTile', id: 1.5, region, maxRows: 1, maxCols: 1 }, 'id'],
+    [{ type: 'measure', id: 1, peakIndex: 0, method: 'guess', dimension: 'F2' }, 'method'],
+    [{ type: 'measure', id: 1, peakIndex: 0, method: 'fit', dimension: 'f2' }, 'dimension'],
+    [{ type: 'accept', peakIndex: 0, method: 'fit', dimension: 'F2', labels: ['H-1', 3] }, 'labels'],
+    [{ type: 'label', pickId: 7, labels: [] }, 'pickId'],
+    [{ type: 'removePick' }, 'pickId'],
+    [{ type: 'measureAll' }, 'method'],
+  ])('names the bad field of %j', (m, field) => {
+    expect(parseFromWebview(m)).toEqual({ ok: false, error: `message "${m.type}": field "${field}" is missing or invalid` });
+  });
+
+  it('rejects non-objects and unknown types', () => {
+    expect(parseFromWebview(null)).toEqual({ ok: false, error: 'message is not an object with a string "type"' });
+    expect(parseFromWebview(['ready'])).toEqual({ ok: false, error: 'message is not an object with a string "type"' });
+    expect(parseFromWebview({ type: 'eraseAll' })).toEqual({ ok: false, error: 'unknown message type "eraseAll"' });
+  });
+
+  it.each(['toString', 'valueOf', 'hasOwnProperty', 'constructor', '__proto__'])('treats the Object.prototype name "%s" as an unknown type (no throw)', (type) => {
+    expect(parseFromWebview({ type })).toEqual({ ok: false, error: `unknown message type "${type}"` });
+    expect(parseToWebview({ type })).toEqual({ ok: false, error: `unknown message type "${type}"` });
+  });
+});
+
+describe('parseToWebview', () => {
+  it('accepts a tile whose Float32Array holds rows x cols values, and refuses one that does not', () => {
+    const tile = { type: 'tile', inReplyTo: 1, region, rows: 2, cols: 3, data: new Float32Array(6) };
+    expect(parseToWebview(tile).ok).toBe(true);
+    expect(parseToWebview({ ...tile, data: new Float32Array(5) })).toEqual({ ok: false, error: 'message "tile": field "data" is missing or invalid' });
+    // JSON numbers are not accepted: the data must arrive as a typed array (structured clone).
+    expect(parseToWebview({ ...tile, data: [0, 0, 0, 0, 0, 0] }).ok).toBe(false);
+  });
+
+  it('accepts an error with or without the request it answers', () => {
+    expect(parseToWebview({ type: 'error', message: 'x' }).ok).toBe(true);
+    expect(parseToWebview({ type: 'error', inReplyTo: 2, message: 'x' }).ok).toBe(true);
+    expect(parseToWebview({ type: 'error' }).ok).toBe(false);
+  });
+});
