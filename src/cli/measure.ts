@@ -114,8 +114,17 @@ export function measurementsText(ms: readonly MeasurementJson[]): string {
   return formatTable(['file', 'peak', 'F2 ppm', 'F1 ppm', 'J Hz (± sd)', 'passive Hz', 'width Hz', 'method', 'flags'], rows);
 }
 
-/** The caution notes, once each, below a table. */
+/** What each flag means for the chemist, printed once below a table for the flags that occur. */
+const FLAG_MEANINGS: Readonly<Record<string, string>> = {
+  unresolved: 'J is not clearly above half the linewidth: the antiphase lines cancel and the value leans on the lineshape model; confirm it another way.',
+  resolution_limited: 'the digital resolution is too coarse for the stated precision.',
+  second_order_suspected: 'the shift difference is under ten times J: line spacings may not be coupling constants; simulate the spin system.',
+  fit_poor: 'the residual is well above the noise (overlap, more couplings, phase or baseline); sd was inflated; inspect the traces.',
+  f1_coarse: 'measured in F1, whose resolution is several Hz per point.',
+};
+
+/** A legend for the flags in a table, once each; `--json` carries each measurement's full notes. */
 export function notesText(ms: readonly MeasurementJson[]): string {
-  const notes = [...new Set(ms.flatMap((m) => m.notes))];
-  return notes.length ? notes.map((n) => `note: ${n}`).join('\n') + '\n' : '';
+  const flags = [...new Set(ms.flatMap((m) => m.flags))].sort();
+  return flags.map((f) => `${f}: ${FLAG_MEANINGS[f] ?? 'see the notes in --json output.'}\n`).join('');
 }
