@@ -63,6 +63,7 @@ function applyLabel(p: Panel, t: Toolbar): void {
 
 function start(init: InitMessage): void {
   const saved = (vscode.getState() ?? {}) as SavedState;
+  panel?.dispose(); // a second init (e.g. the host restarted) replaces the panel
   const p = new Panel(init, el, rpc, (s) => vscode.setState(s), saved);
   panel = p;
   toolbar.setKnownLabels(init.knownLabels);

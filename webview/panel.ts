@@ -9,11 +9,11 @@ import { ContourCache, setLevels, step, type CacheEntry } from './contourCache';
 import type { Action } from './keys';
 import { contourLevels, levelsKey, levelUnit } from './levels';
 import { drawFrame, layoutFor, screenOf, type Frame, type Layout } from './plot';
-import { fullDomain, type View } from './scales';
+import type { View } from './scales';
 import { readPalette, type Palette } from './theme';
 import { covers, planTile, type PointWindow, type TilePlan } from './tiles';
 import { drawTraces } from './traceView';
-import { intensityDomain, pointWindowOf } from './viewWindow';
+import { extentOf, intensityDomain, pointWindowOf } from './viewWindow';
 import { boxZoom, centredOn, clampView, nearestOnScreen, pan, step as stepOrder, zoomAt, type Extent } from './viewModel';
 
 export interface Elements {
@@ -61,6 +61,8 @@ export class Panel {
   private layout: Layout = layoutFor({ width: 300, height: 200 }, 1);
   private palette: Palette;
   private frameQueued = false;
+  /** Set when a new `init` replaced this panel: it must not draw any more. */
+  private disposed = false;
 
   constructor(init: InitMessage, private readonly el: Elements, private readonly rpc: Rpc, private readonly save: (s: SavedState) => void, saved: SavedState) {
     this.meta = init.spectrum;
@@ -70,23 +72,15 @@ export class Panel {
     this.contours = saved.contours ?? init.settings.contours;
     this.method = saved.method ?? init.settings.defaultMethod;
     this.dimension = saved.dimension ?? 'F2';
-    this.extent = this.makeExtent();
+    this.extent = extentOf(this.meta);
     this.view = clampView(saved.view ?? { x: this.extent.x, y: this.extent.y }, this.extent);
     this.selected = saved.selected ?? null;
     this.palette = readPalette();
     this.setContours(this.contours);
   }
 
-  private makeExtent(): Extent {
-    const m = this.meta;
-    const x = fullDomain(m.f2);
-    const ppmPerPoint = Math.abs(x[0] - x[1]) / (m.f2.points - 1);
-    if (m.f1) {
-      const y = fullDomain(m.f1);
-      return { x, y, minSpanX: ppmPerPoint * 8, minSpanY: (Math.abs(y[0] - y[1]) / (m.f1.points - 1)) * 8 };
-    }
-    const pad = 0.05 * (m.max - m.min || 1);
-    return { x, y: [m.max + pad, m.min - pad], minSpanX: ppmPerPoint * 8, minSpanY: (m.max - m.min || 1) / 1e4 };
+  dispose(): void {
+    this.disposed = true;
   }
 
   persist(): void {
@@ -149,7 +143,7 @@ export class Panel {
   }
 
   redraw(): void {
-    if (this.frameQueued) return;
+    if (this.frameQueued || this.disposed) return;
     this.frameQueued = true;
     requestAnimationFrame(() => {
       this.frameQueued = false;
@@ -202,6 +196,7 @@ export class Panel {
     if (!this.cache.get(plan.key) && this.inflight !== plan.key) this.requestTile(plan);
     const tiles = this.tilesFor(plan, win);
     const current = tiles[0]?.plan.key === plan.key ? tiles[0] : undefined;
+    if (current && this.meta.dims === 1 && this.autoY) this.fitIntensity(current);
     const more = current ? step(current, FRAME_BUDGET_MS, () => performance.now()) : false;
     const ctx = this.el.canvas.getContext('2d');
     if (ctx) drawFrame(ctx, this.frameData(tiles), this.layout, this.palette);

@@ -4,7 +4,8 @@
  */
 import type { GridRegion, SpectrumMeta } from '../src/protocol';
 import type { TileData } from './contours';
-import { ppmToPoint, type Domain, type View } from './scales';
+import { fullDomain, ppmToPoint, type Domain, type View } from './scales';
+import type { Extent } from './viewModel';
 import type { PointWindow } from './tiles';
 
 /** Visible fractional point ranges (clamped to the grid; lo <= hi). A 1D spectrum is row 0. */
@@ -36,4 +37,19 @@ export function intensityDomain(tile: TileData, region: GridRegion, win: PointWi
   }
   if (!(hi > lo)) return null;
   return [hi + pad * (hi - lo), lo - pad * (hi - lo)];
+}
+
+/**
+ * The whole spectrum as a view extent. 2D: both ppm axes, at least 8 points visible each way.
+ * 1D: F2 ppm and the intensity range with a 5 % margin.
+ */
+export function extentOf(m: Pick<SpectrumMeta, 'f1' | 'f2' | 'min' | 'max'>): Extent {
+  const x = fullDomain(m.f2);
+  const minSpanX = (Math.abs(x[0] - x[1]) / (m.f2.points - 1)) * 8;
+  if (m.f1) {
+    const y = fullDomain(m.f1);
+    return { x, y, minSpanX, minSpanY: (Math.abs(y[0] - y[1]) / (m.f1.points - 1)) * 8 };
+  }
+  const range = m.max - m.min || 1;
+  return { x, y: [m.max + 0.05 * range, m.min - 0.05 * range], minSpanX, minSpanY: range / 1e4 };
 }

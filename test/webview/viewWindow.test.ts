@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { intensityDomain, pointWindowOf } from '../../webview/viewWindow';
+import { extentOf, intensityDomain, pointWindowOf } from '../../webview/viewWindow';
 
 // 600 MHz axes: F2 11 points 10 -> 0 ppm (1 ppm per point); F1 5 points 8 -> 0 ppm (2 ppm per point).
 const f2 = { points: 11, firstHz: 6000, lastHz: 0, observeMhz: 600 };
@@ -24,5 +24,19 @@ describe('intensityDomain', () => {
   });
   it('gives null for a flat or invisible line', () => {
     expect(intensityDomain({ rows: 1, cols: 2, data: Float32Array.from([2, 2]) }, { row0: 0, row1: 0, col0: 0, col1: 1 }, { row0: 0, row1: 0, col0: 0, col1: 1 })).toBeNull();
+  });
+});
+
+describe('extentOf', () => {
+  it('spans both ppm axes high -> low with at least 8 points visible', () => {
+    const e = extentOf({ f1, f2, min: -1, max: 1 });
+    expect(e.x).toEqual([10, 0]);
+    expect(e.y).toEqual([8, 0]);
+    expect(e.minSpanX).toBe(8); // 1 ppm per point
+    expect(e.minSpanY).toBe(16); // 2 ppm per point
+  });
+  it('uses the intensity range with a 5 % margin for 1D', () => {
+    const e = extentOf({ f2, min: -100, max: 900 });
+    expect(e.y).toEqual([950, -150]);
   });
 });
