@@ -46,3 +46,11 @@ export function contourLevels(unit: number, s: ContourSettings): Levels {
 export function levelsKey(l: Levels): string {
   return l.magnitudes.map((m) => m.toPrecision(6)).join(',');
 }
+
+/** Used when neither the saved view state nor the host's settings hold valid levels. */
+export const FALLBACK_CONTOURS: ContourSettings = { lowestLevel: 8, levels: 10, spacing: 1.4 };
+
+/** The first valid settings among the candidates (saved state, then the host's), else the fallback. */
+export function usableContours(...candidates: readonly (ContourSettings | undefined)[]): ContourSettings {
+  return candidates.find((c): c is ContourSettings => c !== undefined && checkContourSettings(c) === null) ?? FALLBACK_CONTOURS;
+}

@@ -7,7 +7,7 @@ import type { ContourSettings, InitMessage, MeasurementView, PeakView, PickView,
 import type { Rpc } from './rpc';
 import { ContourCache, setLevels, step, type CacheEntry } from './contourCache';
 import type { Action } from './keys';
-import { contourLevels, levelsKey, levelUnit } from './levels';
+import { contourLevels, levelsKey, levelUnit, usableContours } from './levels';
 import { drawFrame, layoutFor, screenOf, type Frame, type Layout } from './plot';
 import type { View } from './scales';
 import { readPalette, type Palette } from './theme';
@@ -69,7 +69,7 @@ export class Panel {
     this.settings = init.settings;
     this.peaks = init.peaks;
     this.sidecar = init.sidecar;
-    this.contours = saved.contours ?? init.settings.contours;
+    this.contours = usableContours(saved.contours, init.settings.contours);
     this.method = saved.method ?? init.settings.defaultMethod;
     this.dimension = saved.dimension ?? 'F2';
     this.extent = extentOf(this.meta);

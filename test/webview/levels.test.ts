@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { checkContourSettings, contourLevels, levelsKey, levelUnit } from '../../webview/levels';
+import { checkContourSettings, contourLevels, levelsKey, levelUnit, usableContours } from '../../webview/levels';
 
 describe('contourLevels', () => {
   it('is lowest x spacing^k in noise units (geometric series)', () => {
@@ -23,5 +23,13 @@ describe('contourLevels', () => {
     const c = contourLevels(1, { lowestLevel: 5, levels: 4, spacing: 2 });
     expect(levelsKey(a)).toBe(levelsKey(b));
     expect(levelsKey(a)).not.toBe(levelsKey(c));
+  });
+});
+
+describe('usableContours', () => {
+  it('takes the first valid candidate and falls back when none is valid', () => {
+    const good = { lowestLevel: 6, levels: 8, spacing: 1.3 };
+    expect(usableContours({ lowestLevel: 6, levels: 0, spacing: 1.3 }, good)).toBe(good);
+    expect(usableContours(undefined, { lowestLevel: 6, levels: 8, spacing: 0.5 })).toEqual({ lowestLevel: 8, levels: 10, spacing: 1.4 });
   });
 });
