@@ -4,6 +4,7 @@
  */
 import { resolve } from 'node:path';
 import { writeAccuracyReport } from './accuracy';
+import { printContourBench, runContourBench } from './contours';
 import { runJcampBench } from './jcampParse';
 import { runPipelineBench } from './pipeline';
 
@@ -16,6 +17,8 @@ function main(): void {
   for (const r of runJcampBench()) {
     console.log(`${r.name.padEnd(42)} ${`${(r.megabytes / (r.ms / 1000)).toFixed(1)} MB/s`.padStart(12)}   ${r.ratio.toFixed(1).padStart(7)} x scan of the same text`);
   }
+  console.log('');
+  printContourBench(runContourBench());
   if (process.argv.includes('--accuracy')) {
     const t0 = performance.now();
     const out = resolve(process.cwd(), 'bench', 'accuracy.md');
