@@ -16,7 +16,7 @@ export interface FlagInput {
 
 /** Thresholds, each with its reason; they are documented in the notes the flags add. */
 export const FLAG_LIMITS = {
-  /** J below half the apparent linewidth: the two antiphase lines largely cancel (design.md). */
+  /** J (or J - 2σ) below half the apparent linewidth: the two antiphase lines largely cancel (design.md). */
   unresolvedRatio: 0.5,
   /**
    * Fewer than 1.5 points per apparent linewidth: coarser than anything the accuracy study
@@ -39,10 +39,15 @@ export function qualityFlags(q: FlagInput): { flags: QualityFlag[]; notes: strin
   const notes: string[] = [];
   const L = FLAG_LIMITS;
   const j = q.jHz.toFixed(2);
-  if (q.jHz < L.unresolvedRatio * q.linewidthHz) {
+  const limit = L.unresolvedRatio * q.linewidthHz;
+  if (q.jHz < limit || q.jHz - 2 * q.jSdHz < limit) {
+    // Also when the data cannot exclude it: the lower end of J ± 2σ is below half the linewidth.
     flags.push('unresolved');
-    notes.push(`J (${j} Hz) is below half the linewidth (${q.linewidthHz.toFixed(2)} Hz): the antiphase lines ` +
-      'largely cancel, so the value rests on the line-shape model; treat it as an estimate and check it ' +
+    notes.push((q.jHz < limit
+      ? `J (${j} Hz) is below half the linewidth (${q.linewidthHz.toFixed(2)} Hz)`
+      : `J - 2 sigma (${(q.jHz - 2 * q.jSdHz).toFixed(2)} Hz) is below half the linewidth (${q.linewidthHz.toFixed(2)} Hz), so the data ` +
+        'do not exclude an unresolved coupling') +
+      ': the antiphase lines largely cancel, so the value rests on the line-shape model; treat it as an estimate and check it ' +
       'against the 1D multiplet or the symmetric cross peak before using it for an assignment.');
   }
   if (q.jSdHz > 0.5 * q.jHz) {

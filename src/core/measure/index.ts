@@ -1,6 +1,7 @@
 import { resolutionHz, hzToPpm } from '../spectrum/axis';
 import { estimateNoise } from '../spectrum/noise';
 import type { Spectrum2D } from '../spectrum/spectrum';
+import { fitAssumedShape } from './assumedShape';
 import { correlationFromProcessing, estimateCorrelation, type NoiseCorrelation } from './correlation';
 import { selectModel, uncertainty, type FitContext, type FitResult } from './fit';
 import { qualityFlags } from './flags';
@@ -101,15 +102,20 @@ export function measureCrossPeak(s: Spectrum2D, peak: CrossPeakInput, opts: Meas
   const line = block.alongProcessing ? processedLine(block.alongProcessing) : pseudoVoigtLine();
   const notes: string[] = [];
   if (!block.alongProcessing) {
-    notes.push(`The ${dimension} processing is not recorded in the file, so the line shape is an assumed Lorentz-Gauss mix ` +
-      'with a fitted mix fraction, and the noise correlation between points was measured on empty parts of the spectrum.');
+    notes.push(`The ${dimension} processing is not recorded in the file, so the line shape is assumed (see below), ` +
+      'and the noise correlation between points was measured on empty parts of the spectrum.');
   }
-  const sel = selectModel(ctx, line, method === 'fit' ? opts.maxPassive ?? 2 : 0, naive.centreHz, naive.jHz);
-  const unc = uncertainty(ctx, sel.fit);
+  // Unknown processing: several line shapes, J averaged over those the data do not reject (assumedShape.ts).
+  const averaged = method === 'fit' && !block.alongProcessing
+    ? fitAssumedShape(ctx, block.along, opts.maxPassive ?? 2, naive.centreHz, naive.jHz)
+    : undefined;
+  const sel = averaged?.best.sel ?? selectModel(ctx, line, method === 'fit' ? opts.maxPassive ?? 2 : 0, naive.centreHz, naive.jHz);
+  const unc = averaged?.best.unc ?? uncertainty(ctx, sel.fit);
   const fit = sel.fit;
   const [linewidthHz, linewidthSdHz] = linewidthWithSd(fit, unc.cov.get(2, 2));
   const mix = mixFraction(fit.spec, fit.theta);
-  const lineshape = line.kind === 'pseudoVoigt' ? `Lorentz-Gauss mix ${mix.toFixed(2)}` : line.description;
+  const fitLine = fit.spec.line;
+  const lineshape = fitLine.kind === 'pseudoVoigt' ? `Lorentz-Gauss mix ${mix.toFixed(2)}` : fitLine.description;
   const hzPt = resolutionHz(block.along);
   let jHz: number;
   let jSdHz: number;
@@ -124,10 +130,10 @@ export function measureCrossPeak(s: Spectrum2D, peak: CrossPeakInput, opts: Meas
       '(parabolic interpolation); it overestimates J near and below the linewidth. The linewidth, chi-squared and the ' +
       'fitted traces come from a model fit without passive couplings.');
   } else {
-    jHz = Math.abs(fit.theta[1] ?? 0);
-    jSdHz = sd(unc.cov, 1);
+    jHz = averaged?.jHz ?? Math.abs(fit.theta[1] ?? 0);
+    jSdHz = averaged?.jSdHz ?? sd(unc.cov, 1);
     centreHz = fit.theta[0] ?? 0;
-    notes.push(...sel.notes);
+    notes.push(...sel.notes, ...(averaged?.notes ?? []));
     notes.push(`Natural linewidth ${lineWidth(fit.spec, fit.theta).toFixed(2)} Hz; uncertainty from the fit covariance with the ` +
       'measured noise, correlation between points included (sandwich estimator)' + (unc.inflated ? `, scaled by sqrt(chi2_red) = ${Math.sqrt(chi2).toFixed(2)}.` : '.'));
   }

@@ -9,9 +9,13 @@ describe('qualityFlags', () => {
   it('raises nothing for a resolved, well-fitted, first-order F2 measurement', () => {
     expect(qualityFlags(ok)).toEqual({ flags: [], notes: [] });
   });
-  it('unresolved just below J = 0.5 w, not at it', () => {
-    expect(qualityFlags({ ...ok, jHz: 1.99 }).flags).toContain('unresolved');
-    expect(qualityFlags({ ...ok, jHz: 2.0 }).flags).not.toContain('unresolved');
+  it('unresolved just below J = 0.5 w, not at it (sigma negligible)', () => {
+    expect(qualityFlags({ ...ok, jHz: 1.99, jSdHz: 0 }).flags).toContain('unresolved');
+    expect(qualityFlags({ ...ok, jHz: 2.0, jSdHz: 0 }).flags).not.toContain('unresolved');
+  });
+  it('unresolved also when J - 2 sigma falls below 0.5 w (the data cannot exclude it)', () => {
+    expect(qualityFlags({ ...ok, jHz: 2.5, jSdHz: 0.26 }).flags).toContain('unresolved');
+    expect(qualityFlags({ ...ok, jHz: 2.5, jSdHz: 0.24 }).flags).not.toContain('unresolved');
   });
   it('second order below |Δν| / J = 10', () => {
     expect(qualityFlags({ ...ok, shiftDiffHz: -69 }).flags).toContain('second_order_suspected');
