@@ -57,7 +57,7 @@ async function waitForHealth(url, proc, timeoutMs) {
 }
 
 /**
- * @param {{ settings?: Record<string, unknown>, logName?: string, quiet?: boolean, keepState?: boolean, installExtension?: boolean }} [opts]
+ * @param {{ settings?: Record<string, unknown>, logName?: string, quiet?: boolean, keepState?: boolean, installExtension?: boolean, env?: Record<string, string> }} [opts]
  *   installExtension: load this repository as an installed extension (symlink), for runs without a payload URL.
  * @returns {Promise<{ url: string, port: number, dir: string, log: string, stop: () => Promise<void> }>}
  */
@@ -91,7 +91,7 @@ export async function startServer(opts = {}) {
     '--ignore-last-opened',
     '--disable-proxy',
   ];
-  const proc = spawn(process.execPath, args, { stdio: ['ignore', 'pipe', 'pipe'], detached: false });
+  const proc = spawn(process.execPath, args, { stdio: ['ignore', 'pipe', 'pipe'], env: { ...process.env, ...(opts.env ?? {}) } });
   proc.stdout.pipe(out);
   proc.stderr.pipe(out);
   if (!opts.quiet) console.log(`[server] code-server ${url} (log ${log})`);
