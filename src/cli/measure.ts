@@ -1,4 +1,4 @@
-import { MeasureError, measureCrossPeak, type Measurement } from '../core/measure';
+import { MeasureError, measureCrossPeak, measurePair, type Measurement, type PairMeasurement } from '../core/measure';
 import { nearestCrossPeak, pickCrossPeaks, type CrossPeak } from '../core/peaks';
 import type { Spectrum, Spectrum2D } from '../core/spectrum/spectrum';
 import { InputError, MeasureFailed } from './errors';
@@ -19,6 +19,9 @@ export interface MeasurementJson {
   partner: number | null;
   j_hz: number;
   j_sd_hz: number;
+  /** J and its sd measured at the symmetric cross peak (null when there is none or it failed). */
+  partner_j_hz: number | null;
+  partner_j_sd_hz: number | null;
   passive_hz: number[];
   passive_sd_hz: number[];
   linewidth_hz: number;
@@ -37,7 +40,8 @@ export function require2D(file: string, s: Spectrum): Spectrum2D {
   return s;
 }
 
-function toJson(file: string, index: number, peak: CrossPeak, m: Measurement): MeasurementJson {
+function toJson(file: string, index: number, peak: CrossPeak, m: Measurement | PairMeasurement): MeasurementJson {
+  const partner = 'partner' in m ? m.partner : null;
   return {
     file,
     peak: index,
@@ -47,6 +51,8 @@ function toJson(file: string, index: number, peak: CrossPeak, m: Measurement): M
     partner: peak.partner,
     j_hz: round(m.jHz, 3),
     j_sd_hz: round(m.jSdHz, 3),
+    partner_j_hz: partner ? round(partner.jHz, 3) : null,
+    partner_j_sd_hz: partner ? round(partner.jSdHz, 3) : null,
     passive_hz: m.passiveHz.map((j) => round(j, 3)),
     passive_sd_hz: m.passiveSdHz.map((j) => round(j, 3)),
     linewidth_hz: round(m.linewidthHz, 3),
@@ -65,7 +71,10 @@ function measureOne(file: string, s: Spectrum2D, peaks: readonly CrossPeak[], in
   const peak = peaks[index];
   if (!peak) throw new MeasureFailed(`${file}: no peak ${index}`);
   try {
-    return toJson(file, index, peak, measureCrossPeak(s, peak, { method: o.method, dimension: o.dimension, noise }));
+    const opts = { method: o.method, dimension: o.dimension, noise };
+    // With a symmetric partner, both are measured and reconciled (CH2/CH3 partners read n J on one side).
+    const partner = peak.partner === null ? undefined : peaks[peak.partner];
+    return toJson(file, index, peak, partner ? measurePair(s, peak, partner, opts) : measureCrossPeak(s, peak, opts));
   } catch (e) {
     if (e instanceof MeasureError) throw new MeasureFailed(`${file}: cross peak at F2 ${peak.f2Ppm.toFixed(4)} / F1 ${peak.f1Ppm.toFixed(4)} ppm: ${e.message}`);
     throw e;
@@ -121,6 +130,8 @@ const FLAG_MEANINGS: Readonly<Record<string, string>> = {
   second_order_suspected: 'the shift difference is under ten times J: line spacings may not be coupling constants; simulate the spin system.',
   fit_poor: 'the residual is well above the noise (overlap, more couplings, phase or baseline); sd was inflated; inspect the traces.',
   f1_coarse: 'measured in F1, whose resolution is several Hz per point.',
+  equivalent_partner: 'one of the two symmetric cross peaks reads 2 or 3 times the other (a CH2/CH3 partner): the smaller value is J.',
+  partner_disagrees: 'the symmetric cross peak gives a different J (not a multiple of 2 or 3); check for overlap or second-order effects.',
 };
 
 /** A legend for the flags in a table, once each; `--json` carries each measurement's full notes. */

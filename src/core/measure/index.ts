@@ -156,3 +156,4 @@ export function measureCrossPeak(s: Spectrum2D, peak: CrossPeakInput, opts: Meas
     flags: q.flags, notes, traces: traceFits(block, fitted), lineshape,
   };
 }
+export { measurePair, reconcile, type PairMeasurement, type PartnerResult } from './pair';

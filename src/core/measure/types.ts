@@ -2,7 +2,12 @@
  * Public types of the J measurement. The CLI and the extension build on these names; keep them stable.
  */
 
-export type QualityFlag = 'unresolved' | 'resolution_limited' | 'second_order_suspected' | 'fit_poor' | 'f1_coarse';
+export type QualityFlag =
+  | 'unresolved' | 'resolution_limited' | 'second_order_suspected' | 'fit_poor' | 'f1_coarse'
+  /** The symmetric cross peak reads n = 2 or 3 times this J: that trace is split by a CH2/CH3 partner. */
+  | 'equivalent_partner'
+  /** The symmetric cross peak gives a J that neither agrees nor is a small multiple. */
+  | 'partner_disagrees';
 
 /** One trace used in a measurement: the data, the fitted model and their difference, over fromPpm..toPpm. */
 export interface TraceFit {
