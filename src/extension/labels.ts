@@ -14,6 +14,11 @@ export function labelsInMarkdown(text: string): string[] {
   return [...new Set(text.match(LABEL) ?? [])];
 }
 
+/** Every label occurrence with its offset (UTF-16 index), for hover and diagnostics in notes. */
+export function labelMatches(text: string): { label: string; offset: number }[] {
+  return [...text.matchAll(LABEL)].map((m) => ({ label: m[0], offset: m.index }));
+}
+
 /** Pick labels and coupling atoms of a readable sidecar; an unreadable one gives none (its diagnostics come elsewhere). */
 export function labelsInSidecar(text: string, fileName: string): string[] {
   const { sidecar } = parseSidecar(text, fileName);

@@ -1,0 +1,46 @@
+/**
+ * Problems of a structure note: atom labels that no spectrum assigns, unreadable sidecars and
+ * front matter. Pure: offsets into the note's text; the glue turns them into VS Code ranges.
+ */
+import { labelMatches } from '../labels';
+import type { FrontMatter } from './frontMatter';
+import type { LabelIndex } from './labelIndex';
+
+export interface NoteProblem {
+  readonly offset: number;
+  readonly length: number;
+  readonly severity: 'warning' | 'info';
+  readonly message: string;
+  readonly code: 'unassigned-label' | 'unreadable-sidecar' | 'front-matter';
+}
+
+/**
+ * One problem per unassigned label, at its first mention (every mention would bury the note).
+ * A warning once a 1D spectrum has picks (its multiplets should name every proton); before that
+ * only information, because a DQF-COSY alone cannot assign an uncoupled proton such as a methoxy.
+ */
+export function noteProblems(text: string, front: FrontMatter, index: LabelIndex): NoteProblem[] {
+  const out: NoteProblem[] = [];
+  if (front.problem !== null) out.push({ offset: 0, length: 3, severity: 'warning', message: front.problem, code: 'front-matter' });
+  if (front.compound === null) return out;
+  for (const u of index.unreadable) {
+    out.push({ offset: 0, length: 3, severity: 'warning', message: `${u} (its labels are not checked)`, code: 'unreadable-sidecar' });
+  }
+  const first = new Map<string, { offset: number; count: number }>();
+  for (const m of labelMatches(text)) {
+    if (m.offset < front.end) continue;
+    const seen = first.get(m.label);
+    if (seen) seen.count++;
+    else first.set(m.label, { offset: m.offset, count: 1 });
+  }
+  const where = index.sidecarCount === 0 ? 'no spectrum of this compound has a sidecar yet' : 'no pick or coupling in this folder\'s sidecars names it';
+  for (const [label, { offset, count }] of first) {
+    if (index.get(label)) continue;
+    out.push({
+      offset, length: label.length, code: 'unassigned-label',
+      severity: index.has1D ? 'warning' : 'info',
+      message: `${label} is not assigned: ${where}${count > 1 ? ` (mentioned ${count} times)` : ''}`,
+    });
+  }
+  return out;
+}
