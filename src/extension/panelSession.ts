@@ -96,7 +96,7 @@ export class PanelSession {
       case 'measure': return this.measureOne(m.id, m.peakIndex, m.method, m.dimension);
       case 'accept': await this.accept(m.peakIndex, m.method, m.dimension, m.labels); return;
       case 'label': await this.edit(`Label ${m.pickId}`, (t) => labelText(this.existing(t), this.store.fileName, m.pickId, m.labels, this.pending.get(m.pickId))); return;
-      case 'removePick': await this.edit(`Remove ${m.pickId}`, (t) => removePickText(this.existing(t), this.store.fileName, m.pickId)); return;
+      case 'removePick': await this.removePick(m.pickId); return;
       case 'measureAll': await this.measureAll(m.method); return;
       case 'cancel': this.measurer.cancel(); return;
     }
@@ -158,6 +158,7 @@ export class PanelSession {
   async accept(index: number, method: Method, dimension: Dim, labels: readonly string[]): Promise<boolean> {
     const s = this.model.spectrum;
     let values: CouplingValues | undefined;
+    let bare: string | null = null;
     let at: { f2Ppm: number; f1Ppm?: number; kind: 'cross' | 'diagonal' | 'multiplet' };
     if (s.dims === 2) {
       const p = this.model.crossPeaks[index];
@@ -167,7 +168,10 @@ export class PanelSession {
         try {
           values = couplingValues(await this.measurement(index, method, dimension));
         } catch (e) {
-          return this.refuse(`not accepted: ${describe(e)}`);
+          if (e instanceof CancelledError) return this.refuse(`not accepted: ${describe(e)}`);
+          // The assignment is worth keeping even when J cannot be measured (overlap, an edge):
+          // the pick is recorded with its labels only, and the user is told why there is no J.
+          bare = describe(e);
         }
       }
     } else {
@@ -184,7 +188,20 @@ export class PanelSession {
       return r.text;
     });
     if (ok && values && !coupled) this.pending.set(pickId, values);
+    if (ok && bare !== null) this.ports.inform(`${pickId} recorded without J (labels only): the measurement failed: ${bare}`);
     return ok;
+  }
+
+  /** Removes a pick and the couplings that rested on it alone (one undo step), saying which. */
+  private async removePick(pickId: string): Promise<void> {
+    let removed: readonly string[] = [];
+    const ok = await this.edit(`Remove ${pickId}`, (t) => {
+      const r = removePickText(this.existing(t), this.store.fileName, pickId);
+      removed = r.removedCouplings;
+      return r.text;
+    });
+    this.pending.delete(pickId);
+    if (ok && removed.length > 0) this.ports.inform(`removed ${pickId} and the coupling${removed.length > 1 ? 's' : ''} measured at it: ${removed.join(', ')} (undo brings them back)`);
   }
 
   /**

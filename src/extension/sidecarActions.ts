@@ -111,6 +111,23 @@ export function labelText(text: string, sidecarName: string, pickId: string, lab
   return t;
 }
 
-export function removePickText(text: string, sidecarName: string, pickId: string): string {
-  return applyEdits(text, removePick(text, pickId, sidecarName));
+export interface RemoveResult {
+  readonly text: string;
+  /** Couplings removed with the pick, as `H-1–H-2 (fit F2, J = 7.10 Hz)`, for the message to the user. */
+  readonly removedCouplings: readonly string[];
+}
+
+/**
+ * Removes a pick. A coupling that cited only this pick goes with it, in the same change (one undo
+ * step brings both back): a measured J whose cross peak was deleted has lost its evidence, and
+ * keeping it with `picks: []` would make it look like a manual value. Couplings that cite other
+ * picks too keep their values and lose only this id; manual couplings without picks are untouched.
+ */
+export function removePickText(text: string, sidecarName: string, pickId: string): RemoveResult {
+  const orphans = readable(text, sidecarName).couplings.filter((c) => c.picks.length === 1 && c.picks[0] === pickId);
+  let t = text;
+  for (const c of orphans) t = applyEdits(t, removeCoupling(t, c, sidecarName));
+  t = applyEdits(t, removePick(t, pickId, sidecarName));
+  const removedCouplings = orphans.map((c) => `${c.atoms[0]}–${c.atoms[1]} (${c.method} ${c.dimension}, J = ${toFixedDecimal(c.jHz, 2)} Hz)`);
+  return { text: t, removedCouplings };
 }

@@ -7,6 +7,7 @@ import { measureCrossPeak } from '../../src/core/measure';
 import { make1D } from '../../src/core/spectrum/spectrum';
 import { makeAxis } from '../../src/core/spectrum/axis';
 import { parseToWebview, type ToWebview } from '../../src/protocol';
+import { CancelledError, FitFailedError } from '../../src/extension/fitClient';
 import { PanelSession, type Measurer, type SessionPorts, type SidecarStore } from '../../src/extension/panelSession';
 import { readSettings } from '../../src/extension/settings';
 import { testModel } from './fixture';
@@ -246,5 +247,49 @@ describe('PanelSession.recordDataHash', () => {
     const h = harness(stale(testModel().sha256));
     expect(await h.session.recordDataHash()).toBe(false);
     expect(h.notes).toEqual(['cosy.jdx.couplet.yaml already matches cosy.jdx; nothing to record']);
+  });
+});
+
+describe('PanelSession when a measurement fails', () => {
+  function failing(error: Error): Harness {
+    const h = harness();
+    const measurer: Measurer = { measure: async () => Promise.reject(error), cancel: () => undefined };
+    const ports: SessionPorts = {
+      post: (m) => void h.posted.push(m), settings: () => readSettings(() => undefined), knownLabels: async () => [],
+      log: (m) => void h.logs.push(m), notify: (m) => void h.notes.push(m), inform: (m) => void h.infos.push(m),
+      withProgress: (_t, work) => work(() => undefined, { cancelled: false, onCancel: () => undefined }),
+    };
+    h.session = new PanelSession(testModel(), h.store, measurer, ports);
+    return h;
+  }
+
+  it('still records the pick with its labels (no coupling) and says why there is no J', async () => {
+    const h = failing(new FitFailedError('window in F2 at 4.0000 ppm has fewer than 6 points'));
+    await h.session.receive({ type: 'accept', peakIndex: 1, method: 'fit', dimension: 'F2', labels: ['H-1', 'H-2'] });
+    const view = h.session.state().view;
+    expect(view.picks.map((p) => p.label)).toEqual([['H-1', 'H-2']]);
+    expect(view.couplings).toEqual([]);
+    expect(h.infos).toEqual([`${view.picks[0]?.id} recorded without J (labels only): the measurement failed: window in F2 at 4.0000 ppm has fewer than 6 points`]);
+    expect(h.notes).toEqual([]);
+  });
+
+  it('records nothing when the user cancelled the measurement', async () => {
+    const h = failing(new CancelledError('cancelled'));
+    await h.session.receive({ type: 'accept', peakIndex: 1, method: 'fit', dimension: 'F2', labels: ['H-1', 'H-2'] });
+    expect(h.store.value).toBeNull();
+    expect(h.notes).toEqual(['not accepted: cancelled']);
+  });
+});
+
+describe('PanelSession.removePick', () => {
+  it('removes the coupling measured at the pick with it, in one write, and tells the user', async () => {
+    const h = harness();
+    await h.session.receive({ type: 'accept', peakIndex: 1, method: 'naive', dimension: 'F2', labels: ['H-1', 'H-2'] });
+    const id = h.session.state().view.picks[0]?.id ?? '';
+    expect(h.session.state().view.couplings).toHaveLength(1);
+    await h.session.receive({ type: 'removePick', pickId: id });
+    expect(h.session.state().view).toEqual({ picks: [], couplings: [], blocked: null });
+    expect(h.store.writes).toBe(2); // one for accept, one for the removal of pick and coupling together
+    expect(h.infos[0]).toMatch(new RegExp(`^removed ${id} and the coupling measured at it: H-1–H-2 \\(naive F2, J = \\d+\\.\\d\\d Hz\\) \\(undo brings them back\\)$`));
   });
 });

@@ -108,10 +108,21 @@ describe('labelText', () => {
 });
 
 describe('removePickText', () => {
-  it('removes the pick and its id from the coupling, keeping the value', () => {
-    const t = removePickText(FIRST, NAME, 'p-4.2000-3.8521');
-    expect(t).toContain('picks: []\n');
-    expect(t).toContain('    j_hz: 7.50\n');
+  it('removes a coupling that rested on the removed pick alone, in the same text change, and names it', () => {
+    const r = removePickText(FIRST, NAME, 'p-4.2000-3.8521');
+    // No coupling is left behind with `picks: []` (that would read as a manual value).
+    expect(r.text).toBe(`${HEAD}\npicks: []\n\ncouplings: []\n`);
+    expect(r.removedCouplings).toEqual(['H-1–H-2 (fit F2, J = 7.50 Hz)']);
+  });
+
+  it('keeps a coupling that cites another pick too, dropping only the removed id', () => {
+    const second = acceptText(FIRST, NAME, at(3.8521, 4.2, ['H-2', 'H-1'])).text;
+    const both = second.replace('picks: [p-3.8521-4.2000]', 'picks: [p-3.8521-4.2000, p-4.2000-3.8521]');
+    expect(both).toContain('picks: [p-3.8521-4.2000, p-4.2000-3.8521]');
+    const r = removePickText(both, NAME, 'p-4.2000-3.8521');
+    expect(r.removedCouplings).toEqual([]);
+    expect(r.text).toContain('    picks: [p-3.8521-4.2000]\n');
+    expect(r.text).toContain('    j_hz: 7.50\n');
   });
 });
 
