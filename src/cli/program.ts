@@ -1,5 +1,6 @@
 import { Command, CommanderError, InvalidArgumentError, Option } from 'commander';
 import { EXIT_BAD_INPUT, EXIT_MEASURE_FAILED, EXIT_OK, InputError, MeasureFailed } from './errors';
+import { registerCheck } from './check';
 import { expandInputs, loadSpectrum, type CliIo } from './io';
 import { info, infoText } from './info';
 import { measureAll, measureAt, measurementsText, notesText, require2D, type MeasureOptions, type MeasurementJson } from './measure';
@@ -94,6 +95,7 @@ export function buildProgram(io: CliIo, setCode: (code: number) => void): Comman
     .option('--json', 'machine-readable output')
     .action((target: string, o: MeasureCliOptions) => setCode(runMeasure(io, target, o)));
 
+  registerCheck(program, io, setCode);
   return program;
 }
 

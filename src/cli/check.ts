@@ -1,0 +1,131 @@
+/**
+ * `couplet check DIR|SIDECAR`: validates sidecars for CI. The rules are pure (src/core/review/check);
+ * this file finds the files, hashes the data (node crypto) and prints the problems.
+ */
+import { createHash } from 'node:crypto';
+import { readdirSync, readFileSync, statSync } from 'node:fs';
+import { basename, dirname, join } from 'node:path';
+import { Option, type Command } from 'commander';
+import { checkCompound, type CompoundInput, type NoteInput, type Problem } from '../core/review/check';
+import { parseSidecar } from '../core/sidecar';
+import { labelsInMarkdown } from '../extension/labels';
+import { EXIT_MEASURE_FAILED, EXIT_OK, InputError } from './errors';
+import type { CliIo } from './io';
+
+const SIDECAR = '.couplet.yaml';
+const NOTE = /\.(md|markdown|tex)$/i;
+
+export type CheckFormat = 'text' | 'json' | 'annotations';
+
+function readText(path: string): string {
+  try {
+    return readFileSync(path, 'utf8');
+  } catch (e) {
+    throw new InputError(`${path}: cannot read file (${(e as NodeJS.ErrnoException).code ?? String(e)})`);
+  }
+}
+
+/** Sidecar files per folder: every one under a directory (hidden folders and node_modules skipped), or the one given. */
+export function findCompounds(target: string): Map<string, string[]> {
+  let isDir: boolean;
+  try {
+    isDir = statSync(target).isDirectory();
+  } catch {
+    throw new InputError(`${target}: no such file or directory`);
+  }
+  const byFolder = new Map<string, string[]>();
+  const add = (file: string): void => {
+    byFolder.set(dirname(file), [...(byFolder.get(dirname(file)) ?? []), file]);
+  };
+  if (!isDir) {
+    if (!target.endsWith(SIDECAR)) throw new InputError(`${target}: not a sidecar (expected a name ending in ${SIDECAR})`);
+    add(target);
+    return byFolder;
+  }
+  const walk = (d: string): void => {
+    for (const name of readdirSync(d).sort()) {
+      if (name.startsWith('.') || name === 'node_modules') continue;
+      const p = join(d, name);
+      if (statSync(p).isDirectory()) walk(p);
+      else if (name.endsWith(SIDECAR)) add(p);
+    }
+  };
+  walk(target);
+  return byFolder;
+}
+
+function sha256Of(path: string): string | null {
+  try {
+    return createHash('sha256').update(readFileSync(path)).digest('hex');
+  } catch {
+    return null;
+  }
+}
+
+/** What the pure rules need for one folder: sidecars with their data hash, notes, labels. */
+export function readCompound(folder: string, sidecarFiles: readonly string[]): CompoundInput {
+  const sidecars = sidecarFiles.map((file) => {
+    const text = readText(file);
+    const dataName = parseSidecar(text, file).sidecar?.data.file ?? basename(file).slice(0, -SIDECAR.length);
+    return { file, text, dataSha256: sha256Of(join(folder, dataName)) };
+  });
+  const notes: NoteInput[] = readdirSync(folder).sort().filter((n) => NOTE.test(n))
+    .map((n) => ({ file: join(folder, n), text: readText(join(folder, n)) }));
+  if (notes.length === 0) return { sidecars, notes };
+  return { sidecars, notes, knownLabels: new Set(notes.flatMap((n) => labelsInMarkdown(n.text))) };
+}
+
+export interface CheckReport {
+  readonly problems: readonly Problem[];
+  readonly sidecars: number;
+  readonly notes: number;
+}
+
+export function runChecks(target: string): CheckReport {
+  const problems: Problem[] = [];
+  let sidecars = 0;
+  let notes = 0;
+  for (const [folder, files] of findCompounds(target)) {
+    const input = readCompound(folder, files);
+    sidecars += input.sidecars.length;
+    notes += input.notes.length;
+    problems.push(...checkCompound(input));
+  }
+  return { problems, sidecars, notes };
+}
+
+export function formatReport(r: CheckReport, format: CheckFormat): string {
+  const count = (s: Problem['severity']): number => r.problems.filter((p) => p.severity === s).length;
+  if (format === 'json') {
+    return JSON.stringify({
+      problems: r.problems, checked: { sidecars: r.sidecars, notes: r.notes },
+      errors: count('error'), warnings: count('warning'),
+    }, null, 2) + '\n';
+  }
+  if (format === 'annotations') {
+    // file:line:column: severity: message — the compiler-message convention CI log parsers turn into inline annotations.
+    return r.problems.map((p) => `${p.file}:${p.line}:${p.column}: ${p.severity}: ${p.message}\n`).join('');
+  }
+  const lines = r.problems.map((p) => `${p.file}:${p.line}: ${p.severity}: ${p.message}\n`).join('');
+  return `${lines}checked ${r.sidecars} sidecar(s) and ${r.notes} note(s): ${count('error')} error(s), ${count('warning')} warning(s)\n`;
+}
+
+/** Problems make the exit code 1: errors always, warnings with --strict. */
+export function checkExitCode(r: CheckReport, strict: boolean): number {
+  const failing = r.problems.some((p) => p.severity === 'error' || (strict && p.severity === 'warning'));
+  return failing ? EXIT_MEASURE_FAILED : EXIT_OK;
+}
+
+export function registerCheck(program: Command, io: CliIo, setCode: (code: number) => void): void {
+  program
+    .command('check')
+    .description('validate sidecars and the SI regions of the notes (for CI); exit 1 on errors, or on warnings with --strict')
+    .argument('<target>', 'a sidecar (*.couplet.yaml) or a directory searched for them')
+    .addOption(new Option('--format <format>', 'text, json, or annotations (file:line:column: severity: message)').choices(['text', 'json', 'annotations']).default('text'))
+    .option('--strict', 'warnings fail too')
+    .action((target: string, o: { format: CheckFormat; strict?: boolean }) => {
+      const r = runChecks(target);
+      io.out(formatReport(r, o.format));
+      setCode(checkExitCode(r, o.strict === true));
+    });
+}
