@@ -103,6 +103,10 @@ export const steps = [
         if (Date.now() > deadline) throw new Error(`${side} not saved with the coupling H-5/H-6${existsSync(side) ? `:\n${readFileSync(side, 'utf8')}` : ' (no file)'}`);
         await sleep(200);
       }
+      // The editor's dirty marker goes once the save went through.
+      await ctx.page.locator('.tab.active:not(.dirty)', { hasText: 'cosy.jdx' }).waitFor({ timeout: 10_000 }).catch(() => {
+        throw new Error('the sidecar is on disk but the cosy.jdx tab still shows unsaved changes');
+      });
       const text = readFileSync(side, 'utf8');
       const j = /^ {4}j_hz: (-?\d+\.\d\d)$/m.exec(text);
       if (!j || Math.abs(Number(j[1]) - J_H5_H6) > 0.1) throw new Error(`saved j_hz ${j?.[1]} is not within 0.1 Hz of ${J_H5_H6}`);
