@@ -1,0 +1,232 @@
+/**
+ * A 1D ¹H multiplet region: its lines, centre, integral (optionally normalised to a reference), a
+ * first-order splitting tree (splittingTree.ts), a check against COSY J values of known partners,
+ * and second-order warnings that replace the first-order J instead of reporting a wrong one.
+ */
+import { ppmToPoint, pointToHz, pointToPpm, resolutionHz } from '../spectrum/axis';
+import { estimateNoise } from '../spectrum/noise';
+import type { Spectrum1D } from '../spectrum/spectrum';
+import { lorentzianPeak } from '../peaks/interpolate';
+import { fitSplittingTree, type TreeFit, type TreeGroup, type TreeOptions } from './splittingTree';
+
+export type MultipletFlag = 'second-order' | 'roofing' | 'not-first-order' | 'cosy-disagrees';
+
+/** A partner proton known from elsewhere (e.g. the DQF-COSY): its shift and, if measured, J ± σ. */
+export interface KnownPartner {
+  label: string;
+  ppm: number;
+  jHz?: number;
+  sdHz?: number;
+}
+
+export interface MultipletOptions {
+  /** Noise sd of the spectrum (default: estimateNoise over the whole spectrum). */
+  noise?: number;
+  /** Lines must exceed threshold × noise (default 8) ... */
+  threshold?: number;
+  /** ... and this fraction of the tallest line (default 0.05: binomial lines go down to 1/6 of the tallest in a quintet, while truncation ripples and ¹³C satellites stay at a few per cent). */
+  minRelativeHeight?: number;
+  /** Normalisation: an integral known to hold `protons` protons (e.g. a reference multiplet's). */
+  reference?: { integral: number; protons: number };
+  partners?: KnownPartner[];
+  tree?: TreeOptions;
+}
+
+export interface CosyCheck {
+  partner: string;
+  cosyJHz: number;
+  cosySdHz: number;
+  oneDJHz: number;
+  oneDSdHz: number;
+  /** |ΔJ| ≤ 3·√(σ1² + σ2²) (agreement within three combined standard deviations). */
+  agrees: boolean;
+}
+
+export interface MultipletAnalysis {
+  fromPpm: number;
+  toPpm: number;
+  centreHz: number;
+  centrePpm: number;
+  /** Σ intensity × |Hz per point| over the region. */
+  integral: number;
+  /** integral / (reference integral per proton); null without a reference. */
+  protons: number | null;
+  lines: { hz: number; ppm: number; height: number }[];
+  /** Full width at half height of the tallest line, Hz. */
+  linewidthHz: number;
+  /** The best first-order tree, kept for inspection even when flagged. */
+  tree: TreeFit | null;
+  /** What may be reported: the tree's groups, or [] when a flag says the first-order J would be wrong. */
+  couplings: TreeGroup[];
+  multiplicity: string;
+  flags: MultipletFlag[];
+  notes: string[];
+  cosy: CosyCheck[];
+}
+
+/** Relative height asymmetry (first half − second half) above which lines lean: about Δν/J < 10 for an AB pair. */
+const ROOF_ASYMMETRY = 0.1;
+/** Largest acceptable relative intensity misfit of a first-order tree. */
+const MAX_INTENSITY_RMS = 0.3;
+const SECOND_ORDER_RATIO = 10;
+/** A line must rise above its surroundings by this many noise sd ... */
+const PROMINENCE_NOISE = 4;
+/** ... and by this fraction of its own height (two equal Lorentzians w/√3 apart, the limit of resolution, dip 0 %; 0.7 w apart, 5 %). */
+const PROMINENCE_FRACTION = 0.03;
+
+/** Σ y·|Δν| over the points between two shifts (rectangle rule; the points are equally spaced). */
+export function integrateRegion(s: Spectrum1D, fromPpm: number, toPpm: number): number {
+  const [i0, i1] = pointRange(s, fromPpm, toPpm);
+  let sum = 0;
+  for (let i = i0; i <= i1; i++) sum += s.data[i] ?? 0;
+  return sum * resolutionHz(s.axis);
+}
+
+function pointRange(s: Spectrum1D, fromPpm: number, toPpm: number): [number, number] {
+  if (!Number.isFinite(fromPpm) || !Number.isFinite(toPpm) || fromPpm === toPpm) {
+    throw new RangeError(`multiplet region ${fromPpm}..${toPpm} ppm must be two different finite shifts`);
+  }
+  const a = Math.round(ppmToPoint(s.axis, fromPpm));
+  const b = Math.round(ppmToPoint(s.axis, toPpm));
+  const i0 = Math.max(1, Math.min(a, b));
+  const i1 = Math.min(s.axis.points - 2, Math.max(a, b));
+  if (i1 - i0 < 2) throw new RangeError(`multiplet region ${fromPpm}..${toPpm} ppm holds fewer than 3 points of '${s.title}'`);
+  return [i0, i1];
+}
+
+/** How far the data fall from point i in one direction before rising above it (or leaving the region). */
+function fall(d: Float64Array, i: number, step: 1 | -1, i0: number, i1: number): number {
+  const h = d[i] ?? 0;
+  let min = h;
+  for (let j = i + step; j >= i0 - 1 && j <= i1 + 1; j += step) {
+    const v = d[j] ?? 0;
+    if (v > h) break;
+    min = Math.min(min, v);
+  }
+  return h - min;
+}
+
+/**
+ * Local maxima above the level that stand out from their surroundings: noise riding on the flat
+ * tails between two lines makes tiny maxima, so a line must also rise by prominence above the
+ * lowest point on each side before a higher one.
+ */
+function pickLines(s: Spectrum1D, i0: number, i1: number, level: number, noise: number): MultipletAnalysis['lines'] {
+  const d = s.data;
+  const out: MultipletAnalysis['lines'] = [];
+  for (let i = i0; i <= i1; i++) {
+    const v = d[i] ?? 0;
+    const l = d[i - 1] ?? 0;
+    const r = d[i + 1] ?? 0;
+    if (!(v > level && v > l && v >= r)) continue;
+    const prominence = Math.max(PROMINENCE_NOISE * noise, PROMINENCE_FRACTION * v);
+    if (Math.min(fall(d, i, -1, i0, i1), fall(d, i, 1, i0, i1)) < prominence) continue;
+    const { offset, height } = lorentzianPeak(l, v, r);
+    out.push({ hz: pointToHz(s.axis, i + offset), ppm: pointToPpm(s.axis, i + offset), height });
+  }
+  return out;
+}
+
+/** Full width at half height around point i, linear interpolation between points. */
+function widthAt(s: Spectrum1D, hz: number, height: number): number {
+  const d = s.data;
+  const i = Math.round((hz - s.axis.firstHz) / ((s.axis.lastHz - s.axis.firstHz) / (s.axis.points - 1)));
+  const half = height / 2;
+  const walk = (step: 1 | -1): number => {
+    let j = i;
+    while (j + step >= 0 && j + step < d.length && (d[j + step] ?? 0) > half) j += step;
+    const a = d[j] ?? 0;
+    const b = d[j + step] ?? 0;
+    return j + (a === b ? 0 : (step * (a - half)) / (a - b));
+  };
+  return Math.abs(walk(1) - walk(-1)) * resolutionHz(s.axis);
+}
+
+/** Analyse the multiplet between two shifts of a 1D spectrum (see the module comment). */
+export function analyseMultiplet(s: Spectrum1D, fromPpm: number, toPpm: number, opts: MultipletOptions = {}): MultipletAnalysis {
+  const [i0, i1] = pointRange(s, fromPpm, toPpm);
+  const noise = opts.noise ?? estimateNoise(s.data);
+  let top = 0;
+  for (let i = i0; i <= i1; i++) top = Math.max(top, s.data[i] ?? 0);
+  const level = Math.max((opts.threshold ?? 8) * noise, (opts.minRelativeHeight ?? 0.05) * top);
+  const lines = pickLines(s, i0, i1, level, noise);
+  const integral = integrateRegion(s, fromPpm, toPpm);
+  const protons = opts.reference ? integral / (opts.reference.integral / opts.reference.protons) : null;
+  const base = { fromPpm: Math.max(fromPpm, toPpm), toPpm: Math.min(fromPpm, toPpm), integral, protons, lines };
+  const tallest = lines.reduce<(typeof lines)[number] | undefined>((m, l) => (m && m.height >= l.height ? m : l), undefined);
+  if (!tallest) {
+    const mid = (fromPpm + toPpm) / 2;
+    return {
+      ...base, centreHz: mid * s.axis.observeMhz, centrePpm: mid, linewidthHz: 0, tree: null, couplings: [], multiplicity: 'm',
+      flags: ['not-first-order'], notes: [`no line above ${level.toExponential(2)} (noise ${noise.toExponential(2)}) in the region`], cosy: [],
+    };
+  }
+  const linewidthHz = widthAt(s, tallest.hz, tallest.height);
+  // Two equal Lorentzians show a single maximum when closer than w/√3 (derived: the second derivative at the midpoint).
+  const tree = fitSplittingTree(lines, {
+    mergeHz: linewidthHz / Math.sqrt(3),
+    positionTolHz: Math.max(0.05, resolutionHz(s.axis) / 4),
+    ...opts.tree,
+  });
+  const w = lines.reduce((a, l) => a + l.height, 0);
+  const centreHz = tree ? tree.centreHz : lines.reduce((a, l) => a + l.hz * l.height, 0) / w;
+  const flags: MultipletFlag[] = [];
+  const notes: string[] = [];
+  judgeTree(tree, lines, flags, notes);
+  const cosy = checkPartners(centreHz / s.axis.observeMhz, s.axis.observeMhz, tree, opts.partners ?? [], flags, notes);
+  const reportable = tree !== null && !flags.some((f) => f === 'second-order' || f === 'not-first-order');
+  return {
+    ...base, centreHz, centrePpm: centreHz / s.axis.observeMhz, linewidthHz, tree,
+    couplings: reportable ? tree.groups : [], multiplicity: reportable ? tree.multiplicity : 'm', flags, notes, cosy,
+  };
+}
+
+function judgeTree(tree: TreeFit | null, lines: MultipletAnalysis['lines'], flags: MultipletFlag[], notes: string[]): void {
+  if (!tree) {
+    flags.push('not-first-order');
+    notes.push(`no first-order splitting tree (up to 4 groups of 1-4 equivalent partners) predicts these ${lines.length} lines; reported as m.`);
+    return;
+  }
+  if (tree.intensityRms > MAX_INTENSITY_RMS) {
+    flags.push('not-first-order', 'second-order');
+    notes.push(`the best first-order tree (${tree.multiplicity}) misses the binomial intensities by ${(100 * tree.intensityRms).toFixed(0)} % rms: ` +
+      'second-order (strong coupling) or overlap; line spacings need not be couplings, so no J is reported.');
+  }
+  // Binomial patterns are symmetric: heights leaning to one side are the roof effect of a strongly coupled partner.
+  const hs = [...lines].sort((a, b) => b.hz - a.hz).map((l) => l.height);
+  const n = Math.floor(hs.length / 2);
+  const total = hs.reduce((a, h) => a + h, 0);
+  const asym = (hs.slice(0, n).reduce((a, h) => a + h, 0) - hs.slice(hs.length - n).reduce((a, h) => a + h, 0)) / total;
+  if (Math.abs(asym) > ROOF_ASYMMETRY) {
+    flags.push('roofing');
+    if (!flags.includes('second-order')) flags.push('second-order');
+    notes.push(`the lines lean toward ${asym > 0 ? 'higher' : 'lower'} frequency (asymmetry ${asym.toFixed(2)}): roofing toward a strongly ` +
+      'coupled partner (shift difference / J below about 10); the first-order J would be wrong, so none is reported.');
+  }
+}
+
+function checkPartners(
+  centrePpm: number, mhz: number, tree: TreeFit | null, partners: readonly KnownPartner[], flags: MultipletFlag[], notes: string[],
+): CosyCheck[] {
+  const checks: CosyCheck[] = [];
+  for (const p of partners) {
+    const dnu = Math.abs(p.ppm - centrePpm) * mhz;
+    const nearest = p.jHz === undefined || !tree ? undefined
+      : tree.groups.reduce<TreeGroup | undefined>((m, g) => (m && Math.abs(m.jHz - Math.abs(p.jHz ?? 0)) <= Math.abs(g.jHz - Math.abs(p.jHz ?? 0)) ? m : g), undefined);
+    const j = Math.abs(p.jHz ?? nearest?.jHz ?? 0);
+    if (j > 0 && dnu / j < SECOND_ORDER_RATIO) {
+      if (!flags.includes('second-order')) flags.push('second-order');
+      notes.push(`shift difference to ${p.label} / J = ${(dnu / j).toFixed(1)} (< ${SECOND_ORDER_RATIO}): second-order effects expected.`);
+    }
+    if (p.jHz === undefined || !nearest) continue;
+    const sd = p.sdHz ?? 0;
+    const agrees = Math.abs(nearest.jHz - Math.abs(p.jHz)) <= 3 * Math.hypot(nearest.sdHz, sd);
+    checks.push({ partner: p.label, cosyJHz: p.jHz, cosySdHz: sd, oneDJHz: nearest.jHz, oneDSdHz: nearest.sdHz, agrees });
+    if (!agrees) {
+      if (!flags.includes('cosy-disagrees')) flags.push('cosy-disagrees');
+      notes.push(`J to ${p.label}: COSY ${Math.abs(p.jHz).toFixed(2)} ± ${sd.toFixed(2)} Hz, nearest 1D splitting ${nearest.jHz.toFixed(2)} ± ` +
+        `${nearest.sdHz.toFixed(2)} Hz: they differ by more than 3 combined sd.`);
+    }
+  }
+  return checks;
+}
