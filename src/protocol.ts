@@ -165,7 +165,13 @@ export interface CommandMessage {
   readonly command: 'nextPeak' | 'previousPeak' | 'measure' | 'accept' | 'label' | 'zoomToPeak' | 'resetZoom';
 }
 
-export type ToWebview = InitMessage | TileMessage | SidecarMessage | MeasuredMessage | ProgressMessage | ErrorMessage | CommandMessage;
+/** The user changed a `couplet.*` setting while the panel is open: the new values replace init's. */
+export interface SettingsMessage {
+  readonly type: 'settings';
+  readonly settings: ViewSettings;
+}
+
+export type ToWebview = InitMessage | TileMessage | SidecarMessage | MeasuredMessage | ProgressMessage | ErrorMessage | CommandMessage | SettingsMessage;
 
 // ---- webview -> host ------------------------------------------------------------------------
 
@@ -237,6 +243,14 @@ const isStrList = (v: unknown): v is string[] => Array.isArray(v) && v.every(isS
 const isMethod = (v: unknown): v is 'fit' | 'naive' => v === 'fit' || v === 'naive';
 const isDim = (v: unknown): v is 'F2' | 'F1' => v === 'F2' || v === 'F1';
 
+const isNum = (v: unknown): v is number => typeof v === 'number' && Number.isFinite(v);
+
+/** Shapes only; the webview still checks the contour values' ranges (checkContourSettings). */
+function isViewSettings(v: unknown): v is ViewSettings {
+  return isObj(v) && isObj(v.contours) && isNum(v.contours.lowestLevel) && isPosInt(v.contours.levels) && isNum(v.contours.spacing)
+    && isMethod(v.defaultMethod) && isNonNegInt(v.jDecimals);
+}
+
 function isRegion(v: unknown): v is GridRegion {
   return isObj(v) && isNonNegInt(v.row0) && isNonNegInt(v.row1) && isNonNegInt(v.col0) && isNonNegInt(v.col1) && v.row0 <= v.row1 && v.col0 <= v.col1;
 }
@@ -271,6 +285,7 @@ const TO_WEBVIEW: Record<ToWebview['type'], (m: Obj) => string | null> = {
   progress: (m) => (!isStr(m.task) ? 'task' : !isNonNegInt(m.done) ? 'done' : !isNonNegInt(m.total) ? 'total' : null),
   error: (m) => (!isStr(m.message) ? 'message' : null),
   command: (m) => (!isStr(m.command) ? 'command' : null),
+  settings: (m) => (!isViewSettings(m.settings) ? 'settings' : null),
 };
 
 /** Validates a message from the host (the webview checks what it receives too). */

@@ -90,6 +90,15 @@ function onMessage(m: ToWebview): void {
       if (m.inReplyTo !== undefined && rpc.requests.reject(m.inReplyTo, m.message)) return;
       return void p?.status(m.message);
     case 'sidecar': return void p?.setSidecar(m.sidecar);
+    case 'settings': {
+      if (!p) return;
+      p.applySettings(m.settings);
+      toolbar.lowest.set(p.contours.lowestLevel);
+      toolbar.levels.set(p.contours.levels);
+      toolbar.spacing.set(p.contours.spacing);
+      toolbar.method.set(p.method);
+      return;
+    }
     case 'progress': return void p?.status(m.done < m.total ? `${m.task}: ${m.done} / ${m.total} (Esc cancels)` : `${m.task}: done`);
     case 'command': {
       if (!p) return;

@@ -41,7 +41,7 @@ const SNAP_PX = 24;
 
 export class Panel {
   readonly meta: InitMessage['spectrum'];
-  readonly settings: ViewSettings;
+  settings: ViewSettings;
   contours: ContourSettings;
   method: 'fit' | 'naive';
   dimension: 'F2' | 'F1';
@@ -50,6 +50,8 @@ export class Panel {
   view: View;
   selected: number | null;
   measurement: MeasurementView | null = null;
+  /** The peak whose last measurement failed: Accept then records a bare pick (labels only). */
+  failedPeak: number | null = null;
   box: Frame['box'] = null;
   /** 1D: fit the intensity axis to the visible data when the next tile arrives (after F2 zooms). */
   autoY = true;
@@ -241,11 +243,23 @@ export class Panel {
       (m) => {
         if (m.type !== 'measured') return this.status(`Unexpected reply "${m.type}" to a measurement.`);
         this.measurement = m.measurement;
+        this.failedPeak = null;
         this.status('');
         this.showTrace();
       },
-      (e: unknown) => this.status(`Measurement failed: ${e instanceof Error ? e.message : String(e)}`),
+      (e: unknown) => {
+        this.failedPeak = idx;
+        this.status(`Measurement failed: ${e instanceof Error ? e.message : String(e)} (Accept records the pick without J)`);
+      },
     );
+  }
+
+  /** New `couplet.*` settings while open: levels and J decimals follow; the method only if still the old default. */
+  applySettings(s: ViewSettings): void {
+    if (this.method === this.settings.defaultMethod) this.method = s.defaultMethod;
+    this.settings = s;
+    this.setContours(usableContours(s.contours, this.contours));
+    this.showTrace();
   }
 
   showTrace(): void {
@@ -263,6 +277,10 @@ export class Panel {
       return this.status(`Picked multiplet ${this.selected}${labels.length ? ` as ${labels.join(', ')}` : ''}.`);
     }
     const m = this.measurement;
+    if ((!m || m.peakIndex !== this.selected) && this.selected !== null && this.failedPeak === this.selected) {
+      this.rpc.post({ type: 'accept', peakIndex: this.selected, method: this.method, dimension: this.dimension, labels });
+      return this.status('Recording the pick without J (its measurement failed).');
+    }
     if (!m || m.peakIndex !== this.selected) return this.status('Measure the selected peak before accepting.');
     this.rpc.post({ type: 'accept', peakIndex: m.peakIndex, method: m.method, dimension: m.dimension, labels });
     this.status(`Accepted J = ${m.jHz.toFixed(this.settings.jDecimals)} Hz.`);

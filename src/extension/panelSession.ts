@@ -73,6 +73,11 @@ export class PanelSession {
     this.ports.post({ type: 'sidecar', sidecar: this.state().view });
   }
 
+  /** Call when a `couplet.*` setting changed: the open panel redraws with the new values. */
+  settingsChanged(): void {
+    this.ports.post({ type: 'settings', settings: this.ports.settings() });
+  }
+
   /** Validates and handles one raw message; invalid ones are logged and dropped. */
   async receive(raw: unknown): Promise<void> {
     const parsed = parseFromWebview(raw);

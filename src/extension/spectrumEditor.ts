@@ -89,6 +89,9 @@ export class SpectrumEditorProvider implements vscode.CustomEditorProvider<Spect
     const subs = [
       panel.webview.onDidReceiveMessage((m: unknown) => void session.receive(m)),
       document.store.onDidChange(() => session.sidecarChanged()),
+      vscode.workspace.onDidChangeConfiguration((e) => {
+        if (e.affectsConfiguration('couplet')) session.settingsChanged();
+      }),
       panel.onDidChangeViewState((e) => {
         if (e.webviewPanel.active) this.lastActive = entry;
       }),

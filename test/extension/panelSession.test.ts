@@ -281,6 +281,18 @@ describe('PanelSession when a measurement fails', () => {
   });
 });
 
+describe('PanelSession.settingsChanged', () => {
+  it('posts the current settings to the open panel as a valid settings message', () => {
+    let levels = 10;
+    const h = harness(null, testModel(), { settings: () => readSettings((k) => (k === 'couplet.contours.levels' ? levels : undefined)) });
+    levels = 25; // the user edits couplet.contours.levels while the panel is open
+    h.session.settingsChanged();
+    const m = last(h);
+    expect(m && parseToWebview(m).ok).toBe(true);
+    expect(m).toEqual({ type: 'settings', settings: { ...readSettings(() => undefined), contours: { ...readSettings(() => undefined).contours, levels: 25 } } });
+  });
+});
+
 describe('PanelSession.removePick', () => {
   it('removes the coupling measured at the pick with it, in one write, and tells the user', async () => {
     const h = harness();

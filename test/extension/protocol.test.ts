@@ -1,5 +1,6 @@
 /** Validation of messages crossing the host/webview boundary (src/protocol.ts). */
 import { describe, expect, it } from 'vitest';
+import { readSettings } from '../../src/extension/settings';
 import { parseFromWebview, parseToWebview, type FromWebview } from '../../src/protocol';
 
 const region = { row0: 0, row1: 9, col0: 2, col1: 5 };
@@ -59,5 +60,23 @@ describe('parseToWebview', () => {
     expect(parseToWebview({ type: 'error', message: 'x' }).ok).toBe(true);
     expect(parseToWebview({ type: 'error', inReplyTo: 2, message: 'x' }).ok).toBe(true);
     expect(parseToWebview({ type: 'error' }).ok).toBe(false);
+  });
+});
+
+describe('parseToWebview: settings', () => {
+  const settings = readSettings(() => undefined);
+
+  it('accepts the settings the host reads (the package.json defaults)', () => {
+    expect(parseToWebview({ type: 'settings', settings })).toEqual({ ok: true, value: { type: 'settings', settings } });
+  });
+
+  it.each([
+    ['a missing settings object', undefined],
+    ['a non-integer level count', { ...settings, contours: { ...settings.contours, levels: 2.5 } }],
+    ['a NaN lowest level', { ...settings, contours: { ...settings.contours, lowestLevel: Number.NaN } }],
+    ['an unknown method', { ...settings, defaultMethod: 'guess' }],
+    ['negative J decimals', { ...settings, jDecimals: -1 }],
+  ])('refuses %s, naming the field', (_what, bad) => {
+    expect(parseToWebview({ type: 'settings', settings: bad })).toEqual({ ok: false, error: 'message "settings": field "settings" is missing or invalid' });
   });
 });
