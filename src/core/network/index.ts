@@ -1,0 +1,3 @@
+/** The coupling network of a compound: spin systems, J tables, consistency diagnostics. */
+export * from './network';
+export * from './tables';
