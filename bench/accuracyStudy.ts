@@ -11,6 +11,7 @@
  * - error: measured J minus true J, Hz; covered: |error| <= 2 sigma (the reported jSdHz).
  */
 import { measureCrossPeak, type CrossPeakInput } from '../src/core/measure';
+import { informationLimitSd } from './accuracyCrb';
 import { processedLine } from '../src/core/measure/lineshape';
 import { simulateCrossPeakRegion } from '../src/core/simulate/dqfCosy';
 import type { SpinSystem } from '../src/core/simulate/spinSystem';
@@ -37,6 +38,8 @@ export interface CaseResult extends StudyCase {
   naiveJ: number;
   fitErr: number;
   naiveErr: number;
+  /** σ(J) of a least-squares fit at the true parameters (bench/accuracyCrb.ts): the information limit. */
+  crbSd: number;
   covered: boolean;
   flags: string[];
   passivesFound: number;
@@ -65,7 +68,8 @@ export function apparentWidth(c: StudyCase): number {
   return processedLine(f2Processing(c)).fwhm(c.naturalHz, 0);
 }
 
-export function simulateCase(c: StudyCase) {
+/** The simulated cross peak of a case; noisy = false gives the same region without noise. */
+export function simulateCase(c: StudyCase, noisy = true) {
   const p2 = f2Processing(c);
   const w = apparentWidth(c);
   const j = c.jOverW * w;
@@ -82,7 +86,7 @@ export function simulateCase(c: StudyCase) {
   }
   const system: SpinSystem = { observeMhz: OBSERVE_MHZ, spins, couplings };
   const cols = Math.max(64, Math.ceil(140 / c.hzPerPoint));
-  const sim = simulateCrossPeakRegion(system, 'X', 'A', { f1: F1, f2: p2, rows: 24, cols, noise: { seed: c.seed, snr: c.snr } });
+  const sim = simulateCrossPeakRegion(system, 'X', 'A', { f1: F1, f2: p2, rows: 24, cols, ...(noisy ? { noise: { seed: c.seed, snr: c.snr } } : {}) });
   const s = sim.spectrum;
   // The extent a picker would give: the multiplet span plus one linewidth each side.
   const half2 = (j + jp) / 2 + w;
@@ -96,12 +100,13 @@ export function simulateCase(c: StudyCase) {
       row0: row(NU_X + half1), row1: row(NU_X - half1), col0: col(NU_A + half2), col1: col(NU_A - half2),
     },
   };
-  return { spectrum: s, peak, jHz: j, widthHz: w };
+  return { spectrum: s, peak, jHz: j, widthHz: w, passiveHz: jp, noiseSigma: sim.noiseSigma };
 }
 
 export function runCase(c: StudyCase): CaseResult {
-  const { spectrum, peak, jHz, widthHz } = simulateCase(c);
-  const base = { ...c, jHz, widthHz };
+  const { spectrum, peak, jHz, widthHz, passiveHz, noiseSigma } = simulateCase(c);
+  const truth = { centreHz: NU_A, jHz, naturalHz: c.naturalHz, passiveHz: passiveHz > 0 ? [passiveHz] : [] };
+  const base = { ...c, jHz, widthHz, crbSd: informationLimitSd(simulateCase(c, false).spectrum, peak, noiseSigma, truth) };
   try {
     const fit = measureCrossPeak(spectrum, peak, { maxPassive: 2 });
     const naive = measureCrossPeak(spectrum, peak, { method: 'naive' });
@@ -125,13 +130,31 @@ export function studyGrid(levels: {
   for (const jOverW of levels.jOverW) for (const hzPerPoint of levels.hzPerPoint) for (const snr of levels.snr)
     for (const aqS of levels.aqS) for (const naturalHz of levels.naturalHz) for (const passiveOverW of levels.passiveOverW)
       for (const shiftDeg of levels.shiftDeg) out.push({ jOverW, hzPerPoint, snr, aqS, naturalHz, passiveOverW, shiftDeg, seed: seed++ });
-  return out;
+  return out.filter(realistic);
 }
 
+/**
+ * The issue's ranges (J/w 0.4-5, F2 0.3-2 Hz/point, SNR 20-500) at widths typical of a DQF-COSY:
+ * F2 AQ 0.25 or 0.5 s with a squared cosine bell and natural widths 0.5 or 1.5 Hz give apparent
+ * widths of 2.2-4.7 Hz; cases whose J falls outside 0.8-18 Hz (typical 1H-1H couplings,
+ * references.md handbook ranges) or that are not zero-filled are dropped by `realistic`.
+ */
 export const FULL_GRID = {
   jOverW: [0.4, 0.5, 0.7, 1, 2, 5], hzPerPoint: [0.3, 0.6, 1.2, 2], snr: [20, 50, 150, 500],
-  aqS: [0.15, 0.3], naturalHz: [0.8], passiveOverW: [0, 1.5], shiftDeg: [90],
+  aqS: [0.25, 0.5], naturalHz: [0.5, 1.5], passiveOverW: [0, 1.5], shiftDeg: [90],
 };
+
+/** J limits of the study, Hz: typical 1H-1H couplings (references.md, handbook ranges [mem]). */
+export const J_RANGE_HZ = [0.8, 18] as const;
+
+/**
+ * Realistic cases: J within J_RANGE_HZ, and the F2 FID zero-filled at least 1.5 times
+ * (AQ x Hz/point <= 2/3; zero-filling at least once is common practice).
+ */
+export function realistic(c: StudyCase): boolean {
+  const j = c.jOverW * apparentWidth(c);
+  return j >= J_RANGE_HZ[0] && j <= J_RANGE_HZ[1] && c.aqS * c.hzPerPoint <= 2 / 3 + 1e-9;
+}
 
 export function percentile(values: number[], q: number): number {
   const v = values.filter(Number.isFinite).sort((a, b) => a - b);
@@ -149,6 +172,14 @@ export interface GroupSummary {
   /** Median reported sigma of the fit, and 1.645 times it: the P90 |error| an unbiased estimator with that sigma would show. */
   medianSd: number;
   efficientP90: number;
+  /** 1.645 x the median information-limit sigma (bench/accuracyCrb.ts), and fit P90 over it. */
+  crbP90: number;
+  p90OverCrb: number;
+  /**
+   * Efficiency ratio per case: P90 of |error| / CRB sigma, over 1.645 (1 for an efficient unbiased fit).
+   * Unlike fit P90 / (1.645 x median CRB sigma) it is not dominated by the least informative cases of a mixed group.
+   */
+  efficiency: number;
   coverage: number;
 }
 
@@ -160,6 +191,9 @@ export function summarise(label: string, rs: CaseResult[]): GroupSummary {
     naiveP90: percentile(ok.map((r) => Math.abs(r.naiveErr)), 0.9),
     medianSd: percentile(ok.map((r) => r.fitSd), 0.5),
     efficientP90: 1.645 * percentile(ok.map((r) => r.fitSd), 0.5),
+    crbP90: 1.645 * percentile(ok.map((r) => r.crbSd), 0.5),
+    p90OverCrb: percentile(ok.map((r) => Math.abs(r.fitErr)), 0.9) / (1.645 * percentile(ok.map((r) => r.crbSd), 0.5)),
+    efficiency: percentile(ok.map((r) => Math.abs(r.fitErr) / r.crbSd), 0.9) / 1.645,
     coverage: ok.length ? ok.filter((r) => r.covered).length / ok.length : NaN,
   };
 }
@@ -191,11 +225,11 @@ export function runAccuracyStudy(cases: StudyCase[] = studyGrid(FULL_GRID)): { r
 export function markdownTable(groups: GroupSummary[]): string {
   const f = (x: number, d = 3): string => (Number.isFinite(x) ? x.toFixed(d) : 'n/a');
   const lines = [
-    '| group | cases | failed | fit P90 abs error (Hz) | naive P90 abs error (Hz) | median fit sigma (Hz) | 1.645 x median sigma (Hz) | coverage at 2 sigma |',
-    '|---|---|---|---|---|---|---|---|',
+    '| group | cases | failed | fit P90 abs error (Hz) | naive P90 abs error (Hz) | median fit sigma (Hz) | 1.645 x median sigma (Hz) | 1.645 x median CRB sigma (Hz) | fit P90 / CRB P90 | efficiency (P90 of error / CRB sigma, / 1.645) | coverage at 2 sigma |',
+    '|---|---|---|---|---|---|---|---|---|---|---|',
   ];
   for (const g of groups) {
-    lines.push(`| ${g.label} | ${g.n} | ${g.failed} | ${f(g.fitP90)} | ${f(g.naiveP90)} | ${f(g.medianSd)} | ${f(g.efficientP90)} | ${f(g.coverage * 100, 1)} % |`);
+    lines.push(`| ${g.label} | ${g.n} | ${g.failed} | ${f(g.fitP90)} | ${f(g.naiveP90)} | ${f(g.medianSd)} | ${f(g.efficientP90)} | ${f(g.crbP90)} | ${f(g.p90OverCrb, 2)} | ${f(g.efficiency, 2)} | ${f(g.coverage * 100, 1)} % |`);
   }
   return lines.join('\n');
 }
