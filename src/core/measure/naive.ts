@@ -36,8 +36,49 @@ function vertex(a: number, b: number, c: number): { x: number; grad: [number, nu
   return { x: num / (2 * d), grad: [(d - num) / (2 * d * d), num / (d * d), (-d - num) / (2 * d * d)] };
 }
 
+/** Local extrema of the summed trace at least `thr` high, in index order, with their signs. */
+function extrema(y: Float64Array, thr: number): { i: number; sign: number }[] {
+  const out: { i: number; sign: number }[] = [];
+  for (let i = 1; i < y.length - 1; i++) {
+    const v = y[i] ?? 0;
+    const a = y[i - 1] ?? 0;
+    const b = y[i + 1] ?? 0;
+    if (v >= thr && v > a && v >= b) out.push({ i, sign: 1 });
+    else if (-v >= thr && v < a && v <= b) out.push({ i, sign: -1 });
+  }
+  return out;
+}
+
 /**
- * The naive J: distance between the strongest positive and the strongest negative point of the
+ * The pair a chemist reads: with passive couplings the strongest positive and negative points need
+ * not be neighbours, so take the adjacent opposite-sign extrema whose sign order is that of the whole
+ * antiphase multiplet (its outermost extrema), the pair nearest the multiplet centre. Falls back to
+ * the strongest points when there is no such pair.
+ */
+function readPair(y: Float64Array, thr: number, iMax: number, iMin: number): [number, number] {
+  const ex = extrema(y, thr);
+  const first = ex[0];
+  const last = ex.at(-1);
+  if (!first || !last || first.sign === last.sign) return [iMax, iMin];
+  const centre = (first.i + last.i) / 2;
+  let best: [number, number] | undefined;
+  let bestD = Infinity;
+  for (let k = 0; k + 1 < ex.length; k++) {
+    const a = ex[k];
+    const b = ex[k + 1];
+    if (!a || !b || a.sign !== first.sign || b.sign !== last.sign) continue;
+    const d = Math.abs((a.i + b.i) / 2 - centre);
+    if (d < bestD) {
+      bestD = d;
+      best = a.sign > 0 ? [a.i, b.i] : [b.i, a.i];
+    }
+  }
+  return best ?? [iMax, iMin];
+}
+
+/**
+ * The naive J: distance between the positive and negative extremum of the adjacent antiphase pair
+ * nearest the multiplet centre (readPair; the strongest points without passive splittings) of the
  * summed traces, each refined by parabolic interpolation. Its standard deviation propagates the
  * noise (sigma, with the correlation between points and between traces) through both vertices.
  * Kept for comparison: it overestimates J near and below the linewidth (references.md).
@@ -68,6 +109,8 @@ export function naiveSplitting(
   if (iMax === 0 || iMax === m - 1 || iMin === 0 || iMin === m - 1) {
     throw new MeasureError(`antiphase extremum at the edge of the window in ${where}; the window is too narrow`);
   }
+  // Extrema below 3 sigma or a sixth of the strongest are noise or wiggles a reader would ignore (common practice).
+  [iMax, iMin] = readPair(summed, Math.max(3 * sumSigma, Math.max(summed[iMax] ?? 0, -(summed[iMin] ?? 0)) / 6), iMax, iMin);
   const vp = vertex(summed[iMax - 1] ?? 0, summed[iMax] ?? 0, summed[iMax + 1] ?? 0);
   const vn = vertex(summed[iMin - 1] ?? 0, summed[iMin] ?? 0, summed[iMin + 1] ?? 0);
   const hzPt = Math.abs((block.freqs[1] ?? 0) - (block.freqs[0] ?? 0));
