@@ -6,6 +6,7 @@ const entries = [
   { in: 'src/cli.ts', out: 'cli' },
   { in: 'bench/index.ts', out: 'bench' },
   { in: 'scripts/makeSamples.ts', out: 'makeSamples' },
+  { in: 'scripts/makeSidecars.ts', out: 'makeSidecars' },
 ].filter((e) => existsSync(e.in));
 
 await build({
@@ -18,6 +19,8 @@ await build({
   sourcemap: true,
   logLevel: 'warning',
   banner: { js: '#!/usr/bin/env node' },
+  // A native module (prebuilt binary from its optional dependencies): required at run time, not bundled.
+  external: ['@resvg/resvg-js'],
 });
 
 // The extension host bundle and its fit worker: CommonJS for VS Code's loader, `vscode` provided by the host.
