@@ -17,7 +17,7 @@ const MARKDOWN: vscode.DocumentSelector = { language: 'markdown' };
 /** Typing stops for this long before a note's diagnostics are recomputed (they read files). */
 const DEBOUNCE_MS = 300;
 
-export type MultiplicityOf = (note: vscode.Uri, label: string) => Promise<string | undefined>;
+export type MultiplicityOf = (note: vscode.TextDocument, compound: string, label: string) => Promise<string | undefined>;
 
 function completionProvider(): vscode.CompletionItemProvider {
   return {
@@ -43,7 +43,8 @@ function completionProvider(): vscode.CompletionItemProvider {
 function hoverProvider(multiplicity: MultiplicityOf): vscode.HoverProvider {
   return {
     async provideHover(doc, position) {
-      if (compoundOf(doc) === null) return undefined;
+      const compound = compoundOf(doc);
+      if (compound === null) return undefined;
       const line = doc.lineAt(position.line).text;
       const hit = labelMatches(line).find((m) => position.character >= m.offset && position.character <= m.offset + m.label.length);
       if (!hit) return undefined;
@@ -51,7 +52,7 @@ function hoverProvider(multiplicity: MultiplicityOf): vscode.HoverProvider {
       const range = new vscode.Range(position.line, hit.offset, position.line, hit.offset + hit.label.length);
       if (!info) return new vscode.Hover(`**${hit.label}**: no spectrum of this compound assigns it yet.`, range);
       const jDecimals = readSettings((k) => vscode.workspace.getConfiguration().get(k)).jDecimals;
-      const m = await multiplicity(doc.uri, hit.label).catch(() => undefined);
+      const m = await multiplicity(doc, compound, hit.label).catch(() => undefined);
       return new vscode.Hover(new vscode.MarkdownString(hoverText(info, { jDecimals, ...(m !== undefined && { multiplicity: m }) })), range);
     },
   };

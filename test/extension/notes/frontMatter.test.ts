@@ -8,17 +8,23 @@ describe('readFrontMatter', () => {
     const note = readFileSync(join(__dirname, '..', '..', '..', 'samples', 'brisquarene', 'brisquarene.md'), 'utf8');
     const f = readFrontMatter(note);
     expect(f.compound).toBe('brisquarene');
-    expect(note.slice(0, f.end)).toBe('---\ncompound: brisquarene\n---\n');
+    expect(note.slice(0, f.end)).toMatch(/^---\ncompound: brisquarene\n[^]*---\n$/);
+    expect(note.slice(f.end)).toMatch(/^\n?# Brisquarene/);
   });
 
   it('is not a compound note without front matter, or with front matter lacking the key', () => {
-    expect(readFrontMatter('# Title\ncompound: x\n')).toEqual({ compound: null, problem: null, end: 0 });
+    expect(readFrontMatter('# Title\ncompound: x\n')).toEqual({ compound: null, solvent: null, problem: null, end: 0 });
     expect(readFrontMatter('---\ntitle: x\n---\nbody').compound).toBeNull();
   });
 
   it('reports YAML errors and a compound that is not text', () => {
     expect(readFrontMatter('---\ncompound: [a\n---\n').problem).toMatch(/^front matter is not valid YAML/);
     expect(readFrontMatter('---\ncompound: {a: 1}\n---\n').problem).toBe('front matter field "compound" should be a compound id (text)');
+  });
+
+  it('reads the solvent for the SI header when given', () => {
+    expect(readFrontMatter('---\ncompound: q\nsolvent: CD3OD\n---\n')).toMatchObject({ compound: 'q', solvent: 'CD3OD' });
+    expect(readFrontMatter('---\ncompound: q\n---\n').solvent).toBeNull();
   });
 
   it('accepts CRLF line ends and a numeric id (YAML 1.2 reads `12` as an integer)', () => {
