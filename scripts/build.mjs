@@ -6,6 +6,7 @@ const entries = [
   { in: 'src/cli.ts', out: 'cli' },
   { in: 'bench/index.ts', out: 'bench' },
   { in: 'scripts/makeSamples.ts', out: 'makeSamples' },
+  { in: 'scripts/makeSidecars.ts', out: 'makeSidecars' },
 ].filter((e) => existsSync(e.in));
 
 await build({

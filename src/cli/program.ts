@@ -5,6 +5,7 @@ import { expandInputs, loadSpectrum, type CliIo } from './io';
 import { info, infoText } from './info';
 import { measureAll, measureAt, measurementsText, notesText, require2D, type MeasureOptions, type MeasurementJson } from './measure';
 import { peaks, peaksText } from './peaks';
+import { registerReport } from './report';
 import { registerRender } from './render';
 
 function ppmArg(value: string): number {
@@ -97,6 +98,7 @@ export function buildProgram(io: CliIo, setCode: (code: number) => void): Comman
     .action((target: string, o: MeasureCliOptions) => setCode(runMeasure(io, target, o)));
 
   registerCheck(program, io, setCode);
+  registerReport(program, io, setCode);
   registerRender(program, io, setCode);
   return program;
 }

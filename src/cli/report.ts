@@ -1,0 +1,120 @@
+/**
+ * `couplet report DIR|SIDECAR [--format md|tex|json|csv|nmredata]`: per compound (a folder with
+ * sidecars; id and solvent from the structure note's front matter `compound:` / `solvent:`), the SI
+ * line, J table, spin systems and consistency diagnostics. The numbers come from src/core/report
+ * and src/core/network; this file reads the files and prints.
+ */
+import { createHash } from 'node:crypto';
+import { readdirSync, readFileSync } from 'node:fs';
+import { basename, join } from 'node:path';
+import { Option, type Command } from 'commander';
+import { jTableCsv, jTableMarkdown, type NetworkSource } from '../core/network';
+import { compoundReport, compoundReportJson, type CompoundReport } from '../core/report/compound';
+import { nmredataRecord } from '../core/report/nmredata';
+import { parseSidecar } from '../core/sidecar';
+import type { Spectrum, Spectrum1D } from '../core/spectrum/spectrum';
+import { labelsInMarkdown } from '../extension/labels';
+import { readFrontMatter } from '../extension/notes/frontMatter';
+import { findCompounds } from './check';
+import { EXIT_OK, InputError } from './errors';
+import { SPECTRUM_EXTENSIONS, loadSpectrum, type CliIo } from './io';
+
+export type ReportFormat = 'md' | 'tex' | 'json' | 'csv' | 'nmredata';
+
+function readBytes(path: string): Buffer {
+  try {
+    return readFileSync(path);
+  } catch (e) {
+    throw new InputError(`${path}: cannot read file (${(e as NodeJS.ErrnoException).code ?? String(e)})`);
+  }
+}
+
+function readSource(folder: string, file: string): NetworkSource {
+  const text = readBytes(file).toString('utf8');
+  const first = parseSidecar(text, file).sidecar;
+  const dataPath = first ? join(folder, first.data.file) : null;
+  const sha = dataPath ? createHash('sha256').update(readBytes(dataPath)).digest('hex') : undefined;
+  const r = parseSidecar(text, file, sha ? { dataSha256: sha } : {});
+  const errors = r.diagnostics.filter((d) => d.severity === 'error');
+  // A report from a broken, conflicted or stale sidecar would put wrong numbers in a manuscript.
+  if (!r.sidecar || errors.length > 0) {
+    throw new InputError(`${file}: cannot report from this sidecar:\n${errors.map((d) => `  ${d.message}`).join('\n')}\n  (couplet check ${file} lists every problem)`);
+  }
+  return { file: basename(file), sidecar: r.sidecar };
+}
+
+function noteOf(folder: string): { compound: string; solvent: string | null; labels: string[] } {
+  for (const name of readdirSync(folder).sort()) {
+    if (!/\.(md|markdown)$/i.test(name)) continue;
+    const text = readBytes(join(folder, name)).toString('utf8');
+    const fm = readFrontMatter(text);
+    if (fm.compound !== null) return { compound: fm.compound, solvent: fm.solvent, labels: labelsInMarkdown(text.slice(fm.end)) };
+  }
+  return { compound: basename(folder), solvent: null, labels: [] };
+}
+
+function spectraOf(folder: string): Spectrum[] {
+  return readdirSync(folder).sort()
+    .filter((n) => SPECTRUM_EXTENSIONS.some((ext) => n.toLowerCase().endsWith(ext)))
+    .map((n) => loadSpectrum(join(folder, n)));
+}
+
+/** The report of every compound folder under the target (or of the one sidecar given). */
+export function buildReports(target: string): CompoundReport[] {
+  const out: CompoundReport[] = [];
+  for (const [folder, files] of findCompounds(target)) {
+    const sources = files.map((f) => readSource(folder, f));
+    const note = noteOf(folder);
+    const spectra = spectraOf(folder);
+    const oneD = spectra.find((s): s is Spectrum1D => s.dims === 1);
+    const any = spectra[0];
+    const observeMhz = oneD ? oneD.axis.observeMhz : any && any.dims === 2 ? any.f2.observeMhz : Number.NaN;
+    if (!Number.isFinite(observeMhz)) throw new InputError(`${folder}: no spectrum beside the sidecars gives the observe frequency`);
+    out.push(compoundReport({
+      compound: note.compound, sources, observeMhz, solvent: note.solvent,
+      ...(oneD && { spectrum1D: oneD }),
+      ...(note.labels.length > 0 && { noteLabels: note.labels }),
+    }));
+  }
+  if (out.length === 0) throw new InputError(`${target}: no sidecars (*.couplet.yaml) found`);
+  return out;
+}
+
+function markdownOf(r: CompoundReport): string {
+  const lines = [`## ${r.compound}`, '', r.siLine.md, ''];
+  if (r.notes.length > 0) lines.push('Notes:', '', ...r.notes.map((n) => `- ${n}`), '');
+  lines.push('### J values (Hz; adopted value ± sd, method)', '', jTableMarkdown(r.network));
+  lines.push('### Spin systems', '', ...r.network.spinSystems.map((s, i) => `${i + 1}. ${s.join(', ')}`), '');
+  lines.push('### Consistency', '');
+  if (r.network.diagnostics.length === 0) lines.push('Every pair measured more than once agrees within 3 combined sd.', '');
+  else lines.push(...r.network.diagnostics.map((d) => `- ${d.message}`), '');
+  return lines.join('\n');
+}
+
+export function formatReports(rs: readonly CompoundReport[], format: ReportFormat): string {
+  switch (format) {
+    case 'json': return JSON.stringify({ compounds: rs.map(compoundReportJson) }, null, 2) + '\n';
+    case 'tex': return rs.map((r) => [`% ${r.compound}`, r.siLine.tex, ...r.notes.map((n) => `% ${n}`)].join('\n') + '\n').join('\n');
+    case 'csv': {
+      // One header, then every compound's rows with the compound id in front.
+      const tables = rs.map((r) => jTableCsv(r.network).split('\r\n').filter((l) => l !== ''));
+      const header = `compound,${tables[0]?.[0] ?? ''}`;
+      const rows = tables.flatMap((t, i) => t.slice(1).map((l) => `${rs[i]?.compound ?? ''},${l}`));
+      return [header, ...rows].join('\r\n') + '\r\n';
+    }
+    case 'nmredata': return rs.map((r) => nmredataRecord(r)).join('');
+    case 'md': return rs.map(markdownOf).join('\n');
+  }
+}
+
+export function registerReport(program: Command, io: CliIo, setCode: (code: number) => void): void {
+  program
+    .command('report')
+    .description('SI data line, J table, spin systems and consistency per compound (or an NMReDATA export)')
+    .argument('<target>', 'a directory searched for sidecars, or one sidecar (*.couplet.yaml)')
+    .addOption(new Option('--format <format>', 'md, tex, json, csv (J table) or nmredata (SD file)').choices(['md', 'tex', 'json', 'csv', 'nmredata']).default('md'))
+    .action((target: string, o: { format: ReportFormat }) => {
+      io.out(formatReports(buildReports(target), o.format));
+      setCode(EXIT_OK);
+    });
+}

@@ -1,0 +1,72 @@
+/**
+ * Everything `couplet report` and the editor's insert command say about one compound, from data
+ * the caller has already read (core does no I/O): the parsed sidecars, the 1D spectrum if any, the
+ * structure note's labels and solvent.
+ */
+import { buildNetwork, type CouplingNetwork, type NetworkSource } from '../network/network';
+import type { Spectrum1D } from '../spectrum/spectrum';
+import { deriveSiEntries, type DerivedSi } from './siEntries';
+import { formatSiLine, siLineJson, siNotes, type SiHeader } from './siLine';
+
+export interface CompoundInput {
+  compound: string;
+  sources: readonly NetworkSource[];
+  spectrum1D?: Spectrum1D;
+  /** ¹H frequency, MHz (from the 1D or the COSY file). */
+  observeMhz: number;
+  /** From the note's front matter `solvent:`; null when not given. */
+  solvent: string | null;
+  noteLabels?: readonly string[];
+}
+
+export interface CompoundReport {
+  compound: string;
+  header: SiHeader;
+  network: CouplingNetwork;
+  derived: DerivedSi;
+  siLine: { md: string; tex: string };
+  /** What the line did with flagged values, plus derivation notes: never silent. */
+  notes: string[];
+}
+
+/** Written in place of the solvent when the note names none, so the gap is visible in the SI. */
+export const SOLVENT_MISSING = 'solvent?';
+
+export function compoundReport(input: CompoundInput): CompoundReport {
+  const network = buildNetwork(input.sources);
+  const derived = deriveSiEntries({
+    network, sources: input.sources,
+    ...(input.spectrum1D && { spectrum1D: input.spectrum1D }),
+    ...(input.noteLabels && { noteLabels: input.noteLabels }),
+  });
+  const header: SiHeader = { observeMhz: input.observeMhz, solvent: input.solvent ?? SOLVENT_MISSING };
+  const notes = [
+    ...(input.solvent === null ? ['no solvent: add `solvent: CDCl3` (or the one used) to the structure note\'s front matter.'] : []),
+    ...siNotes(derived.entries),
+    ...derived.notes,
+    ...network.diagnostics.map((d) => d.message),
+  ];
+  return {
+    compound: input.compound, header, network, derived,
+    siLine: { md: formatSiLine(header, derived.entries, 'md'), tex: formatSiLine(header, derived.entries, 'tex') },
+    notes,
+  };
+}
+
+/** JSON form (snake_case keys, stable). */
+export function compoundReportJson(r: CompoundReport): Record<string, unknown> {
+  return {
+    compound: r.compound,
+    si: siLineJson(r.header, r.derived.entries),
+    si_tex: r.siLine.tex,
+    proton_unit: r.derived.protonUnit,
+    spin_systems: r.network.spinSystems,
+    couplings: r.network.pairs.map((p) => ({
+      atoms: p.atoms, j_hz: p.adopted.jHz, j_sd_hz: p.adopted.sdHz, method: p.adopted.method, flags: p.adopted.flags,
+      source: p.adopted.source, consistent: p.consistent,
+      measurements: p.measurements.map((m) => ({ j_hz: m.jHz, j_sd_hz: m.sdHz, method: m.method, dimension: m.dimension, flags: m.flags, file: m.file, picks: m.picks })),
+    })),
+    diagnostics: r.network.diagnostics.map((d) => ({ severity: d.severity, code: d.code, atoms: d.atoms, message: d.message })),
+    notes: r.notes,
+  };
+}

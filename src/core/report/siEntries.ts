@@ -1,0 +1,235 @@
+/**
+ * SiEntry[] for a compound from what Couplet records: atom shifts from the sidecars' picks, J from
+ * the coupling network (adopted values), proton counts and observed second-order patterns from
+ * the 1D spectrum, and the structure note's labels. Choices, stated once:
+ * - shift of an atom: the mean of its one-label picks (1D multiplet, diagonal); for atoms without
+ *   one, the mean of the cross peaks' F2 or F1 positions of that atom's label;
+ * - signals: atoms whose shift falls in the same 1D multiplet are one signal (`m` with the range);
+ * - proton counts: integral / unit, the unit being the largest per-proton integral that makes every
+ *   signal whole within 0.2 (protonUnit); without a 1D spectrum every atom counts 1;
+ * - J of one atom to partners within 0.5 Hz of each other (about a linewidth, so the 1D shows one
+ *   splitting) are one group: "t, J = 7.0 Hz" instead of "dd, J = 7.1, 6.9 Hz";
+ * - a coupling flagged second_order_suspected, or a 1D multiplet that analyseMultiplet flags
+ *   second-order, makes the signal `m` with its range (siLine.ts writes no J for it).
+ */
+import type { CouplingNetwork, NetworkSource } from '../network/network';
+import { pickMultiplets1D } from '../peaks/multiplets1D';
+import { naturalCompare } from '../sidecar/decimal';
+import type { Spectrum1D } from '../spectrum/spectrum';
+import { analyseMultiplet, integrateRegion, type MultipletAnalysis } from './multiplet';
+import type { SiCoupling, SiEntry } from './siLine';
+
+export interface DeriveInput {
+  network: CouplingNetwork;
+  sources: readonly NetworkSource[];
+  /** The compound's 1D ¹H spectrum, for proton counts and observed multiplets. */
+  spectrum1D?: Spectrum1D;
+  /** Labels used in the structure note; those no spectrum assigns are reported in notes. */
+  noteLabels?: readonly string[];
+  /** J values closer than this are one splitting group (default 0.5 Hz). */
+  groupHz?: number;
+}
+
+export interface DerivedSignal {
+  labels: string[];
+  ppm: number;
+  fromPpm: number | null;
+  toPpm: number | null;
+  integral: number | null;
+  analysis: MultipletAnalysis | null;
+}
+
+export interface DerivedSi {
+  entries: SiEntry[];
+  signals: DerivedSignal[];
+  /** Per-proton integral unit used for the counts (null without a 1D spectrum). */
+  protonUnit: number | null;
+  notes: string[];
+}
+
+const SECOND_ORDER_FLAGS = new Set(['second_order_suspected', 'second-order']);
+/** Extra width on each side of a 1D multiplet's outer lines for its integral (Lorentzian tails), Hz. */
+const TAIL_HZ = 6;
+
+/** Mean shift per atom label over all picks of all sources. */
+export function atomShifts(sources: readonly NetworkSource[]): Map<string, number> {
+  const acc = new Map<string, number[]>();
+  const add = (label: string | undefined, ppm: number | undefined): void => {
+    if (label === undefined || ppm === undefined) return;
+    acc.set(label, [...(acc.get(label) ?? []), ppm]);
+  };
+  const single = new Set<string>();
+  for (const { sidecar } of sources) {
+    for (const p of sidecar.picks) {
+      if (p.label.length === 1 && p.label[0] !== undefined) single.add(p.label[0]);
+    }
+  }
+  for (const { sidecar } of sources) {
+    for (const p of sidecar.picks) {
+      if (p.label.length === 1) add(p.label[0], p.f2Ppm);
+      // A cross peak's centre lies off the shift by the fit's asymmetry; use it only for atoms without their own pick.
+      else if (p.label.length === 2) {
+        if (!single.has(p.label[0] ?? '')) add(p.label[0], p.f2Ppm);
+        if (!single.has(p.label[1] ?? '')) add(p.label[1], p.f1Ppm);
+      }
+    }
+  }
+  return new Map([...acc].map(([k, v]) => [k, v.reduce((a, b) => a + b, 0) / v.length]));
+}
+
+/**
+ * The largest per-proton unit u such that every integral / u is within 0.2 of a whole number ≥ 1;
+ * candidates are each integral divided by 1..6. Null when none fits.
+ */
+export function protonUnit(integrals: readonly number[]): number | null {
+  const pos = integrals.filter((x) => x > 0);
+  const cands = pos.flatMap((x) => [1, 2, 3, 4, 5, 6].map((n) => x / n)).sort((a, b) => b - a);
+  for (const u of cands) {
+    if (pos.every((x) => x / u >= 0.8 && Math.abs(x / u - Math.round(x / u)) <= 0.2)) return u;
+  }
+  return null;
+}
+
+function signalsFrom(shifts: Map<string, number>, s: Spectrum1D | undefined): DerivedSignal[] {
+  const atoms = [...shifts.keys()].sort(naturalCompare);
+  if (!s) return atoms.map((a) => ({ labels: [a], ppm: shifts.get(a) ?? 0, fromPpm: null, toPpm: null, integral: null, analysis: null }));
+  const { multiplets } = pickMultiplets1D(s);
+  const tail = TAIL_HZ / s.axis.observeMhz;
+  const out: DerivedSignal[] = [];
+  const used = new Set<string>();
+  multiplets.forEach((m, i) => {
+    const labels = atoms.filter((a) => {
+      const x = shifts.get(a) ?? Number.NaN;
+      return x <= m.fromPpm + tail && x >= m.toPpm - tail;
+    });
+    if (labels.length === 0) return;
+    labels.forEach((l) => used.add(l));
+    // Integrate to the outer lines plus the tails, but never past the midpoint to a neighbouring multiplet.
+    const up = multiplets[i - 1];
+    const down = multiplets[i + 1];
+    const from = Math.min(m.fromPpm + tail, up ? (up.toPpm + m.fromPpm) / 2 : Infinity);
+    const to = Math.max(m.toPpm - tail, down ? (down.fromPpm + m.toPpm) / 2 : -Infinity);
+    let analysis: MultipletAnalysis | null = null;
+    try {
+      analysis = analyseMultiplet(s, from, to);
+    } catch {
+      analysis = null;
+    }
+    out.push({ labels, ppm: m.ppm, fromPpm: m.fromPpm, toPpm: m.toPpm, integral: integrateRegion(s, from, to), analysis });
+  });
+  for (const a of atoms) {
+    if (!used.has(a)) out.push({ labels: [a], ppm: shifts.get(a) ?? 0, fromPpm: null, toPpm: null, integral: null, analysis: null });
+  }
+  return out;
+}
+
+/** Derive the SI entries (see the module comment for every choice made). */
+export function deriveSiEntries(input: DeriveInput): DerivedSi {
+  const groupHz = input.groupHz ?? 0.5;
+  const shifts = atomShifts(input.sources);
+  const notes: string[] = [];
+  for (const l of input.noteLabels ?? []) {
+    if (!shifts.has(l)) notes.push(`${l}: named in the structure note, but no spectrum assigns it; not in the SI line.`);
+  }
+  for (const a of input.network.atoms) {
+    if (!shifts.has(a)) notes.push(`${a}: has couplings but no pick gives its shift; not in the SI line.`);
+  }
+  const signals = signalsFrom(shifts, input.spectrum1D);
+  const measured = signals.map((g) => g.integral).filter((x): x is number => x !== null);
+  const unit = input.spectrum1D ? protonUnit(measured) : null;
+  if (input.spectrum1D && unit === null) notes.push('the 1D integrals do not fit whole proton counts; each atom counted as 1 H.');
+  if (!input.spectrum1D) notes.push('no 1D spectrum: proton counts are not measured; each atom counted as 1 H.');
+  const protonsOf = (g: DerivedSignal): number => (g.integral !== null && unit !== null ? Math.max(1, Math.round(g.integral / unit)) : g.labels.length);
+  const signalOf = new Map<string, DerivedSignal>();
+  signals.forEach((g) => g.labels.forEach((l) => signalOf.set(l, g)));
+  const entries = signals.map((g): SiEntry => {
+    const protons = protonsOf(g);
+    const recorded = g.labels.length === 1 ? couplingsOf(input.network, g.labels[0] ?? '', signalOf, protonsOf, groupHz) : [];
+    const couplings = observed(g, recorded, notes);
+    const secondOrder = couplings.some((c) => (c.flags ?? []).some((f) => SECOND_ORDER_FLAGS.has(f))) ||
+      (g.analysis?.flags ?? []).some((f) => f === 'second-order');
+    const range: [number, number] | undefined = g.fromPpm !== null && g.toPpm !== null ? [g.fromPpm, g.toPpm] : spanOf(g.ppm, couplings, input.spectrum1D);
+    const entry: SiEntry = { labels: g.labels, ppm: g.labels.length === 1 ? (shifts.get(g.labels[0] ?? '') ?? g.ppm) : g.ppm, couplings, protons };
+    if (range) entry.rangePpm = range;
+    if (g.labels.length > 1) entry.multiplet = true;
+    if (g.labels.length === 1 && !secondOrder && (g.analysis?.flags ?? []).includes('not-first-order')) {
+      entry.multiplet = true;
+      notes.push(`${g.labels[0] ?? ''}: the 1D multiplet fits no first-order splitting tree (overlapping lines or second order); written as m with its range.`);
+    }
+    if (secondOrder) entry.flags = ['second-order'];
+    return entry;
+  });
+  return { entries, signals, protonUnit: unit, notes };
+}
+
+const LETTERS = ['', 'd', 't', 'q', 'p'];
+
+function lettersOf(cs: readonly SiCoupling[]): string {
+  return cs.filter((c) => !(c.flags ?? []).includes('unresolved')).map((c) => LETTERS[c.count ?? 1] ?? '?').join('') || 's';
+}
+
+/**
+ * Multiplicity as observed: when the 1D multiplet has a clean first-order tree whose letters differ
+ * from what the recorded couplings predict (typically couplings not yet measured in the COSY), or
+ * whose J values differ from the recorded ones by more than 3 combined sd, the SI line follows the
+ * 1D splittings (a direct observation) and a note says so; otherwise the recorded J values stand.
+ */
+function observed(g: DerivedSignal, recorded: SiCoupling[], notes: string[]): SiCoupling[] {
+  const a = g.analysis;
+  if (g.labels.length !== 1 || !a || a.flags.length > 0 || a.tree === null) return recorded;
+  const js = a.couplings.map((c) => c.jHz.toFixed(1)).join(', ');
+  const label = g.labels[0] ?? '';
+  if (a.multiplicity === lettersOf(recorded)) {
+    const resolved = recorded.filter((c) => !(c.flags ?? []).includes('unresolved'));
+    const off = resolved.filter((c, i) => {
+      const o = a.couplings[i];
+      return o !== undefined && Math.abs(o.jHz - Math.abs(c.jHz)) > 3 * Math.hypot(o.sdHz, c.sdHz ?? 0);
+    });
+    if (off.length === 0) return recorded;
+    notes.push(`${label}: the 1D splittings (J = ${js} Hz) and the recorded J (${resolved.map((c) => Math.abs(c.jHz).toFixed(1)).join(', ')} Hz) ` +
+      'differ by more than 3 combined sd; the SI line gives the 1D values. Check the COSY measurement.');
+  } else {
+    notes.push(`${label}: the 1D multiplet is ${a.multiplicity}${js ? ` (J = ${js} Hz)` : ''}, the recorded couplings give ` +
+      `${lettersOf(recorded)}; the SI line follows the 1D spectrum (measure the missing couplings to attribute them).`);
+  }
+  return a.couplings.map((c) => ({ jHz: c.jHz, sdHz: c.sdHz, count: c.count, partners: [], flags: [] }));
+}
+
+function spanOf(ppm: number, cs: SiCoupling[], s: Spectrum1D | undefined): [number, number] | undefined {
+  const mhz = s?.axis.observeMhz;
+  if (!mhz) return undefined;
+  const half = cs.reduce((a, c) => a + (Math.abs(c.jHz) * (c.count ?? 1)) / 2, 0) / mhz;
+  return [ppm + half, ppm - half];
+}
+
+/** The adopted couplings of one atom, partners with J within groupHz merged into one group. */
+function couplingsOf(
+  net: CouplingNetwork, atom: string, signalOf: Map<string, DerivedSignal>, protonsOf: (g: DerivedSignal) => number, groupHz: number,
+): SiCoupling[] {
+  const raw = net.pairs
+    .filter((p) => p.atoms.includes(atom))
+    .map((p) => {
+      const partner = p.atoms[0] === atom ? p.atoms[1] : p.atoms[0];
+      const g = signalOf.get(partner);
+      // A partner signal of n protons (CH2, CH3) splits by n equal J; one label per proton otherwise.
+      const count = g && g.labels.length === 1 ? protonsOf(g) : 1;
+      return { jHz: Math.abs(p.adopted.jHz), sdHz: p.adopted.sdHz, count, partners: [partner], flags: p.adopted.flags };
+    })
+    .sort((a, b) => b.jHz - a.jHz);
+  const out: SiCoupling[] = [];
+  for (const c of raw) {
+    const last = out[out.length - 1];
+    const bothResolved = !(c.flags.includes('unresolved') || (last?.flags ?? []).includes('unresolved'));
+    if (last && bothResolved && Math.abs((last.jHz) - c.jHz) <= groupHz) {
+      const n = (last.count ?? 1) + c.count;
+      last.jHz = ((last.jHz) * (last.count ?? 1) + c.jHz * c.count) / n;
+      last.sdHz = Math.hypot(last.sdHz ?? 0, c.sdHz) / 2;
+      last.count = n;
+      last.partners = [...(last.partners ?? []), ...c.partners];
+      last.flags = [...new Set([...(last.flags ?? []), ...c.flags])];
+    } else {
+      out.push({ ...c, flags: [...c.flags] });
+    }
+  }
+  return out;
+}
