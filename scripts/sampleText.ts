@@ -6,6 +6,8 @@ export function structureNote(c: SampleCompound): string {
   return [
     '---',
     `compound: ${c.id}`,
+    // The SI line's header names the solvent (couplet report, Insert ¹H NMR Data); the story's spectra are in CDCl3.
+    'solvent: CDCl3',
     '---',
     '',
     `# ${c.name}`,
