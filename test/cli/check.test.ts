@@ -124,18 +124,18 @@ describe('couplet check', () => {
     expect(p[0]?.message).toContain('H-9');
   });
 
-  it('repeated J: two readings of one pair beyond 2 x combined sigma warn at the second (exit 0, 1 with --strict)', () => {
+  it('repeated J: two readings of one pair beyond 3 x combined sigma (the network rule) warn at the second (exit 0, 1 with --strict)', () => {
     const text = formatSidecar(sidecar({ couplings: [fit(['H-3', 'H-4a'], 10.2, 0.1), fit(['H-3', 'H-4a'], 11.0, 0.1, { dimension: 'F1' })] }));
     const { dir, file } = compound(text);
     const p = json(dir).problems;
-    // |10.2 - 11.0| = 0.8 > 2 * sqrt(0.1^2 + 0.1^2) = 0.28; the F1 item is the second coupling (sorted F2 before F1).
+    // |10.2 - 11.0| = 0.8 > 3 * sqrt(0.1^2 + 0.1^2) = 0.42 (src/core/network AGREE_SIGMAS); the F1 item is the second coupling (sorted F2 before F1).
     const second = text.split('\n').flatMap((l, i) => (l.includes('- atoms:') ? [i + 1] : []))[1];
     expect(p).toMatchObject([{ file, rule: 'repeated-j', severity: 'warning', line: second }]);
     expect(run('check', dir).code).toBe(0);
     expect(run('check', dir, '--strict').code).toBe(1);
   });
 
-  it('repeated J: readings that agree within 2 x combined sigma, and naive values, are not reported', () => {
+  it('repeated J: readings that agree within 3 x combined sigma, and naive values, are not reported', () => {
     const text = formatSidecar(sidecar({ couplings: [
       fit(['H-3', 'H-4a'], 10.2, 0.1), fit(['H-3', 'H-4a'], 10.4, 0.1, { dimension: 'F1' }), fit(['H-3', 'H-4a'], 12.0, 0.3, { method: 'naive' }),
     ] }));
