@@ -98,7 +98,9 @@ export function measureCrossPeak(s: Spectrum2D, peak: CrossPeakInput, opts: Meas
   if (!(sigma > 0)) throw new MeasureError(`the noise level of '${s.title}' is zero or unmeasurable; pass it explicitly`);
   const rho = correlations(s, block);
   const ctx: FitContext = { block, sigma, rhoAlong: rho.along, rhoAcross: rho.across };
-  const naive = naiveSplitting(block, sigma, rho.along, rho.across);
+  // The fit starts from the strongest points (the span of the whole multiplet); the naive method reports the adjacent pair.
+  const start = naiveSplitting(block, sigma, rho.along, rho.across, 'strongest');
+  const naive = method === 'naive' ? naiveSplitting(block, sigma, rho.along, rho.across) : start;
   const line = block.alongProcessing ? processedLine(block.alongProcessing) : pseudoVoigtLine();
   const notes: string[] = [];
   if (!block.alongProcessing) {
@@ -107,9 +109,9 @@ export function measureCrossPeak(s: Spectrum2D, peak: CrossPeakInput, opts: Meas
   }
   // Unknown processing: several line shapes, J averaged over those the data do not reject (assumedShape.ts).
   const averaged = method === 'fit' && !block.alongProcessing
-    ? fitAssumedShape(ctx, block.along, opts.maxPassive ?? 2, naive.centreHz, naive.jHz)
+    ? fitAssumedShape(ctx, block.along, opts.maxPassive ?? 2, start.centreHz, start.jHz)
     : undefined;
-  const sel = averaged?.best.sel ?? selectModel(ctx, line, method === 'fit' ? opts.maxPassive ?? 2 : 0, naive.centreHz, naive.jHz);
+  const sel = averaged?.best.sel ?? selectModel(ctx, line, method === 'fit' ? opts.maxPassive ?? 2 : 0, start.centreHz, start.jHz);
   const unc = averaged?.best.unc ?? uncertainty(ctx, sel.fit);
   const fit = sel.fit;
   const [linewidthHz, linewidthSdHz] = linewidthWithSd(fit, unc.cov.get(2, 2));

@@ -88,6 +88,8 @@ export function naiveSplitting(
   sigma: number,
   rhoAlong: NoiseCorrelation,
   rhoAcross: NoiseCorrelation,
+  /** 'adjacent': the pair a chemist reads (readPair); 'strongest': the strongest points (the fit's starting values). */
+  pair: 'adjacent' | 'strongest' = 'adjacent',
 ): NaiveResult {
   const signs = traceSigns(block.data);
   const m = block.freqs.length;
@@ -110,7 +112,7 @@ export function naiveSplitting(
     throw new MeasureError(`antiphase extremum at the edge of the window in ${where}; the window is too narrow`);
   }
   // Extrema below 3 sigma or a sixth of the strongest are noise or wiggles a reader would ignore (common practice).
-  [iMax, iMin] = readPair(summed, Math.max(3 * sumSigma, Math.max(summed[iMax] ?? 0, -(summed[iMin] ?? 0)) / 6), iMax, iMin);
+  if (pair === 'adjacent') [iMax, iMin] = readPair(summed, Math.max(3 * sumSigma, Math.max(summed[iMax] ?? 0, -(summed[iMin] ?? 0)) / 6), iMax, iMin);
   const vp = vertex(summed[iMax - 1] ?? 0, summed[iMax] ?? 0, summed[iMax + 1] ?? 0);
   const vn = vertex(summed[iMin - 1] ?? 0, summed[iMin] ?? 0, summed[iMin + 1] ?? 0);
   const hzPt = Math.abs((block.freqs[1] ?? 0) - (block.freqs[0] ?? 0));
