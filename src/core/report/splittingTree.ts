@@ -57,6 +57,9 @@ interface Component {
 }
 
 const LETTERS = ['', 'd', 't', 'q', 'p'];
+const MAX_LINES = 16;
+/** At most this many coupled protons in one tree (a CH between a CH2 and a CH3 has 5). */
+const MAX_PARTNERS = 6;
 
 function binomial(n: number, k: number): number {
   let r = 1;
@@ -148,7 +151,7 @@ function countVectors(g: number, max: number): number[][] {
   return countVectors(g - 1, max).flatMap((v) => Array.from({ length: max }, (_, i) => [...v, i + 1]));
 }
 
-/** Best first-order tree for the lines (any order), or null when none predicts the observed line count. */
+/** Best first-order tree for the lines (any order), or null when none predicts the observed line count (or more than 16 lines). */
 export function fitSplittingTree(lines: readonly ObservedLine[], opts: TreeOptions = {}): TreeFit | null {
   const mergeHz = opts.mergeHz ?? 0.5;
   const posTol = opts.positionTolHz ?? 0.1;
@@ -162,6 +165,8 @@ export function fitSplittingTree(lines: readonly ObservedLine[], opts: TreeOptio
   const rel = obs.map((l) => l.height / hsum);
   const first = xs[0];
   if (first === undefined) return null;
+  // Beyond this many lines the search grows past a second and such multiplets are rarely first order anyway.
+  if (obs.length > MAX_LINES) return null;
   if (obs.length === 1) {
     return { groups: [], centreHz: first, positionRmsHz: 0, intensityRms: 0, predicted: [{ hz: first, intensity: 1 }], multiplicity: 's' };
   }
@@ -170,10 +175,11 @@ export function fitSplittingTree(lines: readonly ObservedLine[], opts: TreeOptio
   const spanTol = Math.max(mergeHz, 5 * posTol);
   let best: Scored | null = null;
   for (let g = 1; g <= maxGroups; g++) {
+    const vectors = countVectors(g, maxCount)
+      .filter((counts) => counts.reduce((p, n) => p * (n + 1), 1) >= obs.length && counts.reduce((a, n) => a + n, 0) <= MAX_PARTNERS);
     for (const idx of combinations(cands.length, g)) {
       const js0 = idx.map((i) => cands[i] ?? 0);
-      for (const counts of countVectors(g, maxCount)) {
-        if (counts.reduce((p, n) => p * (n + 1), 1) < obs.length) continue;
+      for (const counts of vectors) {
         if (Math.abs(js0.reduce((s, j, k) => s + j * (counts[k] ?? 1), 0) - span) > spanTol) continue;
         const fit = scoreTree(xs, rel, js0, counts, { mergeHz, posTol, intTol, sdFloor });
         // Fewer groups win ties: a small penalty per group (Occam), well below a real misfit.
