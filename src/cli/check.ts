@@ -6,11 +6,13 @@ import { createHash } from 'node:crypto';
 import { readdirSync, readFileSync, statSync } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
 import { Option, type Command } from 'commander';
-import { checkCompound, type CompoundInput, type NoteInput, type Problem } from '../core/review/check';
+import { SOLVENT_MISSING } from '../core/report/compound';
+import { checkCompound, type CheckOptions, type CompoundInput, type NoteInput, type Problem } from '../core/review/check';
 import { parseSidecar } from '../core/sidecar';
 import { labelsInMarkdown } from '../extension/labels';
 import { EXIT_MEASURE_FAILED, EXIT_OK, InputError } from './errors';
 import type { CliIo } from './io';
+import { buildReports } from './report';
 
 const SIDECAR = '.couplet.yaml';
 const NOTE = /\.(md|markdown|tex)$/i;
@@ -75,6 +77,25 @@ export function readCompound(folder: string, sidecarFiles: readonly string[]): C
   return { sidecars, notes, knownLabels: new Set(notes.flatMap((n) => labelsInMarkdown(n.text))) };
 }
 
+/**
+ * What the SI regions of a folder's notes should hold: the line `couplet report` gives (issue 5's
+ * formatter), markdown or LaTeX by the note's extension. Nothing when the report cannot be made
+ * (a broken sidecar: its own problems are reported), when sub-folders hold further compounds, or
+ * when the note names no solvent (then the editor and the report fill in different placeholders).
+ */
+function siOptions(folder: string): CheckOptions {
+  if (findCompounds(folder).size !== 1) return {};
+  let report: ReturnType<typeof buildReports>[number] | undefined;
+  try {
+    report = buildReports(folder)[0];
+  } catch {
+    return {};
+  }
+  if (report === undefined || report.header.solvent === SOLVENT_MISSING) return {};
+  const line = report.siLine;
+  return { expectedSi: (kind, note) => (kind !== 'H1' ? undefined : /\.tex$/i.test(note) ? line.tex : line.md) };
+}
+
 export interface CheckReport {
   readonly problems: readonly Problem[];
   readonly sidecars: number;
@@ -89,7 +110,7 @@ export function runChecks(target: string): CheckReport {
     const input = readCompound(folder, files);
     sidecars += input.sidecars.length;
     notes += input.notes.length;
-    problems.push(...checkCompound(input));
+    problems.push(...checkCompound(input, siOptions(folder)));
   }
   return { problems, sidecars, notes };
 }

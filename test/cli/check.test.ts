@@ -87,6 +87,31 @@ describe('couplet check', () => {
     expect(r.code).toBe(0);
   });
 
+  it('stale SI: a region that differs from what couplet report gives is an error at its begin marker; the current line passes', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'couplet-check-si-'));
+    dirs.push(dir);
+    for (const f of ['cosy.jdx', 'brisquarene.md']) copyFileSync(join(samples, 'brisquarene', f), join(dir, f));
+    const s: Sidecar = {
+      schema: 'couplet-sidecar/1', data: { file: 'cosy.jdx', sha256: sha(readFileSync(join(dir, 'cosy.jdx'))) },
+      picks: [{ id: 'p-7.2100-6.8600', f2Ppm: 7.21, f1Ppm: 6.86, label: ['H-5', 'H-6'], kind: 'cross' }],
+      couplings: [fit(['H-5', 'H-6'], 8.52, 0.05)],
+    };
+    writeFileSync(join(dir, 'cosy.jdx.couplet.yaml'), formatSidecar(s));
+    const note = readFileSync(join(dir, 'brisquarene.md'), 'utf8');
+    expect(note, 'the sample note names its solvent (else the rule stays silent)').toMatch(/^solvent: /m);
+    const report = run('report', dir, '--format', 'json');
+    expect(report.code).toBe(0);
+    const current = (JSON.parse(report.out) as { compounds: { si: { line: string } }[] }).compounds[0]?.si.line;
+    expect(current, 'report --format json gives the SI line').toBeTypeOf('string');
+    expect(current).toContain('8.5 Hz');
+    const region = (body: string): string => `${note}\n<!-- couplet:si H1 begin -->\n${body}\n<!-- couplet:si H1 end -->\n`;
+    writeFileSync(join(dir, 'brisquarene.md'), region(current ?? ''));
+    expect(json(dir).problems).toEqual([]);
+    const stale = region((current ?? '').replace('8.5 Hz', '8.6 Hz'));
+    writeFileSync(join(dir, 'brisquarene.md'), stale);
+    expect(json(dir).problems).toMatchObject([{ file: join(dir, 'brisquarene.md'), rule: 'stale-si', severity: 'error', line: lineOf(stale, 'couplet:si H1 begin') }]);
+  });
+
   it('passes on a clean fixture, one line of summary', () => {
     const { dir } = compound(formatSidecar(sidecar()));
     const r = run('check', dir);

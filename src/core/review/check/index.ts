@@ -10,8 +10,8 @@ export { repeatedJRule, AGREEMENT_SIGMAS } from './jRules';
 export { labelRule, schemaAndHashRule, type CheckedSidecar } from './sidecarRules';
 
 export interface CheckOptions {
-  /** The SI text a region kind should hold now (issue 5's formatter), when one is available. */
-  readonly expectedSi?: (kind: string) => string | undefined;
+  /** The SI text a region of this kind in this note should hold now (issue 5's formatter), when known. */
+  readonly expectedSi?: (kind: string, noteFile: string) => string | undefined;
 }
 
 /** Every rule on one compound folder; problems sorted by file, line, column. */

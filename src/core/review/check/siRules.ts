@@ -86,11 +86,11 @@ export function hiddenFlagRule(regions: readonly SiRegion[], sidecars: readonly 
  * for a region kind (issue 5's SI formatter); undefined when it cannot (then nothing is said).
  * Whitespace differences do not count: the note may be wrapped.
  */
-export function staleSiRule(regions: readonly SiRegion[], expected: (kind: string) => string | undefined): Problem[] {
+export function staleSiRule(regions: readonly SiRegion[], expected: (kind: string, noteFile: string) => string | undefined): Problem[] {
   const norm = (s: string): string => s.replace(/\s+/g, ' ').trim();
   const out: Problem[] = [];
   for (const r of regions) {
-    const want = expected(r.kind);
+    const want = expected(r.kind, r.file);
     if (want === undefined || norm(want) === norm(r.body)) continue;
     out.push({ file: r.file, line: r.line, column: 1, severity: 'error', rule: 'stale-si',
       message: `SI region "${r.kind}" differs from what the sidecars give now; re-run "Insert ¹H NMR Data" to update it` });
