@@ -32,7 +32,7 @@ export function writeAccuracyReport(outPath = 'bench/accuracy.md'): void {
     '',
     '## Acceptance criteria against the information limit',
     '',
-    'A tolerance is demanded only where 1.645 x CRB sigma is within it; the fit must be efficient (efficiency <= 1.5)',
+    'A tolerance is demanded only over the cases whose own 1.645 x CRB sigma is within it; the fit must be efficient (efficiency <= 1.5)',
     'everywhere; the 5x gain over the naive reading is demanded where 5 x 1.645 x CRB sigma <= the naive P90.',
     '',
     crbCriteriaTable(results),
