@@ -2,8 +2,13 @@
 import * as path from 'node:path';
 import { Worker } from 'node:worker_threads';
 import * as vscode from 'vscode';
+import { keepNotesInView } from './besideNote';
 import { registerCommands } from './commands';
 import type { WorkerLike } from './fitClient';
+import { registerInsertSi } from './notes/insertSiCommand';
+import { compoundOf } from './notes/noteFiles';
+import { registerNoteFeatures } from './notes/notesFeatures';
+import { SiSource } from './notes/siSource';
 import { SpectrumEditorProvider, VIEW_TYPE } from './spectrumEditor';
 
 export function activate(context: vscode.ExtensionContext): void {
@@ -18,6 +23,13 @@ export function activate(context: vscode.ExtensionContext): void {
     // No retainContextWhenHidden: the webview keeps its view state with getState/setState.
     vscode.window.registerCustomEditorProvider(VIEW_TYPE, provider, { supportsMultipleEditorsPerDocument: true }),
     ...registerCommands(provider, output),
+    keepNotesInView(VIEW_TYPE),
+  );
+  // Structure notes: label completion, hover, diagnostics, and the SI line command.
+  const si = new SiSource();
+  context.subscriptions.push(
+    ...registerNoteFeatures((doc, compound, label) => si.multiplicity(doc, compound, label)),
+    registerInsertSi((doc, compound, lang) => si.siLine(doc, compound, lang), compoundOf, output),
   );
 }
 

@@ -25,6 +25,8 @@ afterAll(() => rmSync(dir, { recursive: true, force: true }));
 interface Recorded {
   commands: string[];
   editors: { viewType: string; options: unknown }[];
+  /** Language features: `completion:markdown`, `hover:markdown`. */
+  providers: string[];
   disposed: number;
 }
 
@@ -35,14 +37,27 @@ function fakeVscode(rec: Recorded): Record<string, unknown> {
     fire(): void {}
     dispose(): void {}
   }
+  const event = (): typeof disposable => disposable;
+  const selectorLanguage = (s: unknown): string => (typeof s === 'object' && s !== null && 'language' in s ? String(s.language) : String(s));
   return {
     EventEmitter,
+    Disposable: { from: () => disposable },
     DiagnosticSeverity: { Error: 0, Warning: 1, Information: 2, Hint: 3 },
     window: {
       createOutputChannel: () => ({ appendLine: () => undefined, show: () => undefined, dispose: () => undefined }),
       registerCustomEditorProvider: (viewType: string, _p: unknown, options: unknown) => (rec.editors.push({ viewType, options }), disposable),
+      tabGroups: { activeTabGroup: { activeTab: undefined }, onDidChangeTabs: event, onDidChangeTabGroups: event },
     },
-    languages: { createDiagnosticCollection: () => ({ set: () => undefined, delete: () => undefined, dispose: () => undefined }) },
+    workspace: {
+      textDocuments: [],
+      createFileSystemWatcher: () => ({ onDidChange: event, onDidCreate: event, onDidDelete: event, dispose: () => undefined }),
+      onDidOpenTextDocument: event, onDidChangeTextDocument: event, onDidCloseTextDocument: event,
+    },
+    languages: {
+      createDiagnosticCollection: () => ({ set: () => undefined, delete: () => undefined, dispose: () => undefined }),
+      registerCompletionItemProvider: (selector: unknown) => (rec.providers.push(`completion:${selectorLanguage(selector)}`), disposable),
+      registerHoverProvider: (selector: unknown) => (rec.providers.push(`hover:${selectorLanguage(selector)}`), disposable),
+    },
     commands: { registerCommand: (id: string) => (rec.commands.push(id), disposable) },
   };
 }
@@ -61,14 +76,18 @@ function loadWithFake(rec: Recorded): { activate(ctx: unknown): void } {
 
 describe('activate', () => {
   it('registers the spectrum editor and every command package.json contributes', () => {
-    const rec: Recorded = { commands: [], editors: [], disposed: 0 };
+    const rec: Recorded = { commands: [], editors: [], providers: [], disposed: 0 };
     const subscriptions: { dispose(): void }[] = [];
     loadWithFake(rec).activate({ subscriptions, extensionPath: root, extensionUri: { fsPath: root } });
     const pkg = JSON.parse(readFileSync(join(root, 'package.json'), 'utf8')) as { contributes: { commands: { command: string }[] } };
     expect(rec.commands.sort()).toEqual(pkg.contributes.commands.map((c) => c.command).sort());
     // No webviewOptions.retainContextWhenHidden: the panel restores its view with getState/setState.
     expect(rec.editors).toEqual([{ viewType: 'couplet.spectrum', options: { supportsMultipleEditorsPerDocument: true } }]);
-    // Everything registered is handed to VS Code for disposal on deactivate.
-    expect(subscriptions.length).toBe(rec.commands.length + 3);
+    // Structure notes: completion and hover for markdown (VS Code API: languages.register*Provider).
+    expect(rec.providers.sort()).toEqual(['completion:markdown', 'hover:markdown']);
+    // Everything registered is handed to VS Code for disposal on deactivate: the commands, the output
+    // channel, the sidecar diagnostics, the editor, the tab watcher, and the notes' 10 (their
+    // diagnostics, file watcher, two providers, three document and three watcher events).
+    expect(subscriptions.length).toBe(rec.commands.length + 4 + 10);
   });
 });

@@ -77,9 +77,12 @@ describe('readSettings', () => {
 });
 
 describe('editor contributions', () => {
-  it('bundles the host to the main entry, with activation inferred from contributions', () => {
+  it('bundles the host to the main entry, with activation inferred from contributions plus markdown', () => {
     expect(pkg.main).toBe('./dist/extension.js');
-    expect(pkg.activationEvents).toEqual([]);
+    // VS Code infers activation from contributed commands and custom editors, not for hover and
+    // completion providers registered in code on a language we do not contribute: structure notes
+    // need onLanguage:markdown (VS Code API docs, "Activation Events").
+    expect(pkg.activationEvents).toEqual(['onLanguage:markdown']);
     expect(pkg.engines.vscode).toBe('^1.100.0');
   });
 
@@ -92,7 +95,7 @@ describe('editor contributions', () => {
 
   it('has every contributed command registered by the code, and no registered command left undeclared', () => {
     const declared = pkg.contributes.commands.map((c) => c.command).sort();
-    const code = source('commands.ts');
+    const code = source('commands.ts') + source('notes/insertSiCommand.ts');
     const panel = [...code.matchAll(/'(nextPeak|previousPeak|measure|accept|label|zoomToPeak|resetZoom)'/g)].map((m) => `couplet.${m[1]}`);
     const direct = [...code.matchAll(/registerCommand\('(couplet\.\w+)'/g)].map((m) => m[1]);
     expect([...new Set([...panel, ...direct])].sort()).toEqual(declared);

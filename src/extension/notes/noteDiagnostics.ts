@@ -11,7 +11,13 @@ export interface NoteProblem {
   readonly length: number;
   readonly severity: 'warning' | 'info';
   readonly message: string;
-  readonly code: 'unassigned-label' | 'unreadable-sidecar' | 'front-matter';
+  readonly code: 'unassigned-label' | 'unreadable-sidecar' | 'front-matter' | 'inconsistent-j';
+}
+
+/** A disagreement the coupling network found (core/network: two measurements of one pair differ). */
+export interface PairProblem {
+  readonly atoms: readonly [string, string];
+  readonly message: string;
 }
 
 /**
@@ -19,7 +25,7 @@ export interface NoteProblem {
  * A warning once a 1D spectrum has picks (its multiplets should name every proton); before that
  * only information, because a DQF-COSY alone cannot assign an uncoupled proton such as a methoxy.
  */
-export function noteProblems(text: string, front: FrontMatter, index: LabelIndex): NoteProblem[] {
+export function noteProblems(text: string, front: FrontMatter, index: LabelIndex, pairs: readonly PairProblem[] = []): NoteProblem[] {
   const out: NoteProblem[] = [];
   if (front.problem !== null) out.push({ offset: 0, length: 3, severity: 'warning', message: front.problem, code: 'front-matter' });
   if (front.compound === null) return out;
@@ -34,6 +40,12 @@ export function noteProblems(text: string, front: FrontMatter, index: LabelIndex
     else first.set(m.label, { offset: m.offset, count: 1 });
   }
   const where = index.sidecarCount === 0 ? 'no spectrum of this compound has a sidecar yet' : 'no pick or coupling in this folder\'s sidecars names it';
+  // Inconsistent J values: a warning at the first mention of either atom (else at the front matter).
+  for (const p of pairs) {
+    const at = first.get(p.atoms[0]) ?? first.get(p.atoms[1]);
+    const label = first.has(p.atoms[0]) ? p.atoms[0] : p.atoms[1];
+    out.push({ offset: at?.offset ?? 0, length: at ? label.length : 3, severity: 'warning', message: p.message, code: 'inconsistent-j' });
+  }
   for (const [label, { offset, count }] of first) {
     if (index.get(label)) continue;
     out.push({

@@ -11,7 +11,10 @@ import { readFrontMatter } from './frontMatter';
 import { hoverText } from './hoverText';
 import { labelCompletions, labelPrefixStart } from './labelCompletion';
 import { noteProblems } from './noteDiagnostics';
-import { compoundIndex, compoundNoteLabels, compoundOf } from './noteFiles';
+import { buildNetwork } from '../../core/network';
+import { readSources } from './compoundSi';
+import { buildLabelIndex } from './labelIndex';
+import { compoundIndex, compoundNoteLabels, compoundOf, compoundSidecars } from './noteFiles';
 
 const MARKDOWN: vscode.DocumentSelector = { language: 'markdown' };
 /** Typing stops for this long before a note's diagnostics are recomputed (they read files). */
@@ -79,7 +82,9 @@ class NoteDiagnostics implements vscode.Disposable {
       this.collection.delete(doc.uri);
       return;
     }
-    const problems = noteProblems(text, front, await compoundIndex(doc.uri));
+    const sidecars = await compoundSidecars(doc.uri);
+    const network = buildNetwork(readSources(sidecars).sources);
+    const problems = noteProblems(text, front, buildLabelIndex(sidecars), network.diagnostics);
     if (doc.isClosed || doc.getText() !== text) return; // a newer refresh is on its way
     this.collection.set(doc.uri, problems.map((p) => {
       const d = new vscode.Diagnostic(new vscode.Range(doc.positionAt(p.offset), doc.positionAt(p.offset + p.length)), p.message,

@@ -126,3 +126,12 @@ describe('label completion', () => {
     expect(items.map((i) => i.sortText)).toEqual(['0000', '0001', '0002', '0003', '0004']);
   });
 });
+
+describe('noteProblems: inconsistent J', () => {
+  it('warns at the first mention of the pair, with the network\'s message', () => {
+    const note = '---\ncompound: demo\n---\nH-3 and H-4a.\n';
+    const idx = buildLabelIndex([{ fileName: 'c', text: cosy() }]);
+    const p = noteProblems(note, readFrontMatter(note), idx, [{ atoms: ['H-4a', 'H-9'], message: 'H-4a–H-9: 7.1 and 9.0 Hz disagree' }]);
+    expect(p.map((x) => [x.code, note.slice(x.offset, x.offset + x.length), x.severity])).toEqual([['inconsistent-j', 'H-4a', 'warning']]);
+  });
+});

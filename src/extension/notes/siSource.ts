@@ -1,0 +1,134 @@
+/**
+ * VS Code side of the SI data: finds the compound's folder (the note's own, or for a LaTeX file the
+ * folder of the markdown note whose front matter names the compound), reads its sidecars, its 1D
+ * spectrum (the first 1D data file by name, as `couplet report` takes it), the observe frequency
+ * and, for the insert command, the data files' hashes; compoundSi.ts does the rest. The parsed 1D
+ * spectrum and the last result per folder are cached (hover asks often; a 1D spectrum is 64k points).
+ */
+import { createHash } from 'node:crypto';
+import * as vscode from 'vscode';
+import { parseJcamp } from '../../core/jcamp';
+import type { CompoundReport } from '../../core/report/compound';
+import type { Spectrum1D } from '../../core/spectrum/spectrum';
+import { labelsInMarkdown } from '../labels';
+import { compoundSi, multiplicities, readSources, siText } from './compoundSi';
+import { readFrontMatter } from './frontMatter';
+import type { SiText } from './insertSiCommand';
+import { compoundSidecars } from './noteFiles';
+import type { NoteLanguage } from './siRegion';
+
+const SPECTRUM = /\.(jdx|dx|jcamp)$/i;
+const OBSERVE = /^##\.OBSERVE FREQUENCY=\s*([0-9.eE+-]+)/m;
+/** The header of a JCAMP-DX file comes first; this much holds its labels. */
+const HEADER_CHARS = 8192;
+
+async function readBytes(uri: vscode.Uri): Promise<Uint8Array | null> {
+  try {
+    return await vscode.workspace.fs.readFile(uri);
+  } catch {
+    return null;
+  }
+}
+
+async function readText(uri: vscode.Uri): Promise<string | null> {
+  const open = vscode.workspace.textDocuments.find((d) => d.uri.toString() === uri.toString());
+  if (open) return open.getText();
+  const bytes = await readBytes(uri);
+  return bytes === null ? null : new TextDecoder('utf-8').decode(bytes);
+}
+
+interface DataFile { readonly name: string; readonly mtime: number; readonly header: string }
+
+async function dataFiles(folder: vscode.Uri): Promise<DataFile[]> {
+  let entries: [string, vscode.FileType][] = [];
+  try {
+    entries = await vscode.workspace.fs.readDirectory(folder);
+  } catch {
+    return [];
+  }
+  const names = entries.filter(([n, t]) => t === vscode.FileType.File && SPECTRUM.test(n)).map(([n]) => n).sort();
+  const out: DataFile[] = [];
+  for (const name of names) {
+    const uri = vscode.Uri.joinPath(folder, name);
+    const [stat, text] = await Promise.all([vscode.workspace.fs.stat(uri).then((s) => s.mtime, () => 0), readText(uri)]);
+    if (text !== null) out.push({ name, mtime: stat, header: text.slice(0, HEADER_CHARS) });
+  }
+  return out;
+}
+
+export class SiSource {
+  private readonly spectra = new Map<string, { mtime: number; spectrum: Spectrum1D | null }>();
+  private readonly results = new Map<string, { key: string; report: CompoundReport }>();
+
+  /** The note of a compound: the markdown file itself, or the one found in the workspace by its front matter. */
+  async noteFor(doc: vscode.TextDocument, compound: string): Promise<{ uri: vscode.Uri; text: string }> {
+    if (doc.languageId === 'markdown') return { uri: doc.uri, text: doc.getText() };
+    for (const uri of await vscode.workspace.findFiles('**/*.md', '**/{node_modules,.git,dist}/**', 500)) {
+      const text = await readText(uri);
+      if (text !== null && readFrontMatter(text).compound === compound) return { uri, text };
+    }
+    throw new Error(`no markdown note with "compound: ${compound}" in its front matter in this workspace`);
+  }
+
+  /** `strict` (the insert command) checks every sidecar against its data file's hash first. */
+  async compound(noteUri: vscode.Uri, noteText: string, compound: string, strict: boolean): Promise<CompoundReport> {
+    const folder = vscode.Uri.joinPath(noteUri, '..');
+    const sidecars = await compoundSidecars(noteUri);
+    const files = await dataFiles(folder);
+    const front = readFrontMatter(noteText);
+    const noteLabels = labelsInMarkdown(noteText.slice(front.end));
+    const key = JSON.stringify([sidecars, files.map((f) => [f.name, f.mtime]), front.solvent, noteLabels, compound]);
+    const cached = this.results.get(folder.toString());
+    let dataHashes: Map<string, string> | undefined;
+    if (strict) dataHashes = await this.hashes(folder, sidecars);
+    else if (cached?.key === key) return cached.report;
+    // The first 1D file by name, as `couplet report` takes it: a 2D file's header declares NTUPLES.
+    const oneD = files.find((f) => !/^##DATA CLASS=\s*NTUPLES/im.test(f.header));
+    const spectrum1D = oneD ? await this.spectrum(vscode.Uri.joinPath(folder, oneD.name), oneD.mtime) : null;
+    const m = files[0] ? OBSERVE.exec(files[0].header) : null;
+    const report = compoundSi({
+      compound, sidecars, solvent: front.solvent, noteLabels,
+      ...(spectrum1D && { spectrum1D }), ...(m && { observeMhz: Number(m[1]) }), ...(dataHashes && { dataHashes }),
+    });
+    this.results.set(folder.toString(), { key, report });
+    return report;
+  }
+
+  private async hashes(folder: vscode.Uri, sidecars: readonly { fileName: string; text: string }[]): Promise<Map<string, string>> {
+    const out = new Map<string, string>();
+    for (const s of readSources(sidecars).sources) {
+      const bytes = await readBytes(vscode.Uri.joinPath(folder, s.sidecar.data.file));
+      // A missing data file gets a hash no file has, so the sidecar's check reports the mismatch.
+      out.set(s.file, bytes === null ? '0'.repeat(64) : createHash('sha256').update(bytes).digest('hex'));
+    }
+    return out;
+  }
+
+  private async spectrum(uri: vscode.Uri, mtime: number): Promise<Spectrum1D | null> {
+    const known = this.spectra.get(uri.toString());
+    if (known?.mtime === mtime) return known.spectrum;
+    const text = await readText(uri);
+    let spectrum: Spectrum1D | null = null;
+    if (text !== null) {
+      const s = parseJcamp(text, uri.path.split('/').pop() ?? uri.path);
+      spectrum = s.dims === 1 ? s : null;
+    }
+    this.spectra.set(uri.toString(), { mtime, spectrum });
+    return spectrum;
+  }
+
+  /** For the insert command. */
+  async siLine(doc: vscode.TextDocument, compound: string, lang: NoteLanguage): Promise<SiText> {
+    const note = await this.noteFor(doc, compound);
+    return siText(await this.compound(note.uri, note.text, compound, true), lang);
+  }
+
+  /** For the hover: the label's multiplicity as the SI line writes it; undefined when it cannot be derived. */
+  async multiplicity(doc: vscode.TextDocument, compound: string, label: string): Promise<string | undefined> {
+    try {
+      return multiplicities(await this.compound(doc.uri, doc.getText(), compound, false)).get(label);
+    } catch {
+      return undefined;
+    }
+  }
+}
