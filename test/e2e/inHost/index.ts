@@ -8,6 +8,7 @@ import * as fs from 'node:fs/promises';
 import * as path from 'node:path';
 import * as vscode from 'vscode';
 import { runSteps } from './harness';
+import { noteSteps } from './notes';
 import { steps } from './suite';
 
 export async function run(): Promise<void> {
@@ -20,7 +21,7 @@ export async function run(): Promise<void> {
   const resultFile = process.env.COUPLET_E2E_RESULT || (folder ? path.join(path.dirname(folder), 'inhost-result.json') : '');
   let results;
   try {
-    results = await runSteps(steps(), log);
+    results = await runSteps([...steps(), ...noteSteps()], log);
   } catch (e) {
     results = [{ name: 'suite', ok: false, ms: 0, error: e instanceof Error ? e.stack ?? e.message : String(e) }];
   }
