@@ -3,19 +3,21 @@
  * this file finds the files, hashes the data (node crypto) and prints the problems.
  */
 import { createHash } from 'node:crypto';
-import { readdirSync, readFileSync, statSync } from 'node:fs';
-import { basename, dirname, join } from 'node:path';
+import { readdirSync, readFileSync } from 'node:fs';
+import { basename, join } from 'node:path';
 import { Option, type Command } from 'commander';
 import { SOLVENT_MISSING } from '../core/report/compound';
 import { checkCompound, type CheckOptions, type CompoundInput, type NoteInput, type Problem } from '../core/review/check';
 import { parseSidecar } from '../core/sidecar';
 import { labelsInMarkdown } from '../extension/labels';
+import { findCompounds, SIDECAR } from './compounds';
 import { EXIT_MEASURE_FAILED, EXIT_OK, InputError } from './errors';
 import type { CliIo } from './io';
 import { buildReports } from './report';
 
-const SIDECAR = '.couplet.yaml';
 const NOTE = /\.(md|markdown|tex)$/i;
+
+export { findCompounds };
 
 export type CheckFormat = 'text' | 'json' | 'annotations';
 
@@ -25,35 +27,6 @@ function readText(path: string): string {
   } catch (e) {
     throw new InputError(`${path}: cannot read file (${(e as NodeJS.ErrnoException).code ?? String(e)})`);
   }
-}
-
-/** Sidecar files per folder: every one under a directory (hidden folders and node_modules skipped), or the one given. */
-export function findCompounds(target: string): Map<string, string[]> {
-  let isDir: boolean;
-  try {
-    isDir = statSync(target).isDirectory();
-  } catch {
-    throw new InputError(`${target}: no such file or directory`);
-  }
-  const byFolder = new Map<string, string[]>();
-  const add = (file: string): void => {
-    byFolder.set(dirname(file), [...(byFolder.get(dirname(file)) ?? []), file]);
-  };
-  if (!isDir) {
-    if (!target.endsWith(SIDECAR)) throw new InputError(`${target}: not a sidecar (expected a name ending in ${SIDECAR})`);
-    add(target);
-    return byFolder;
-  }
-  const walk = (d: string): void => {
-    for (const name of readdirSync(d).sort()) {
-      if (name.startsWith('.') || name === 'node_modules') continue;
-      const p = join(d, name);
-      if (statSync(p).isDirectory()) walk(p);
-      else if (name.endsWith(SIDECAR)) add(p);
-    }
-  };
-  walk(target);
-  return byFolder;
 }
 
 function sha256Of(path: string): string | null {

@@ -15,7 +15,7 @@ import { parseSidecar } from '../core/sidecar';
 import type { Spectrum, Spectrum1D } from '../core/spectrum/spectrum';
 import { labelsInMarkdown } from '../extension/labels';
 import { readFrontMatter } from '../extension/notes/frontMatter';
-import { findCompounds } from './check';
+import { findCompounds } from './compounds';
 import { EXIT_OK, InputError } from './errors';
 import { SPECTRUM_EXTENSIONS, loadSpectrum, type CliIo } from './io';
 
@@ -53,10 +53,10 @@ function noteOf(folder: string): { compound: string; solvent: string | null; lab
   return { compound: basename(folder), solvent: null, labels: [] };
 }
 
-function spectraOf(folder: string): Spectrum[] {
+function spectraOf(folder: string): { name: string; spectrum: Spectrum }[] {
   return readdirSync(folder).sort()
     .filter((n) => SPECTRUM_EXTENSIONS.some((ext) => n.toLowerCase().endsWith(ext)))
-    .map((n) => loadSpectrum(join(folder, n)));
+    .map((n) => ({ name: n, spectrum: loadSpectrum(join(folder, n)) }));
 }
 
 /** The report of every compound folder under the target (or of the one sidecar given). */
@@ -66,13 +66,14 @@ export function buildReports(target: string): CompoundReport[] {
     const sources = files.map((f) => readSource(folder, f));
     const note = noteOf(folder);
     const spectra = spectraOf(folder);
-    const oneD = spectra.find((s): s is Spectrum1D => s.dims === 1);
-    const any = spectra[0];
+    const oneDEntry = spectra.find((s) => s.spectrum.dims === 1);
+    const oneD = oneDEntry?.spectrum as Spectrum1D | undefined;
+    const any = spectra[0]?.spectrum;
     const observeMhz = oneD ? oneD.axis.observeMhz : any && any.dims === 2 ? any.f2.observeMhz : Number.NaN;
     if (!Number.isFinite(observeMhz)) throw new InputError(`${folder}: no spectrum beside the sidecars gives the observe frequency`);
     out.push(compoundReport({
       compound: note.compound, sources, observeMhz, solvent: note.solvent,
-      ...(oneD && { spectrum1D: oneD }),
+      ...(oneD && oneDEntry && { spectrum1D: oneD, spectrum1DFile: oneDEntry.name }),
       ...(note.labels.length > 0 && { noteLabels: note.labels }),
     }));
   }

@@ -4,6 +4,7 @@
  * structure note's labels and solvent.
  */
 import { buildNetwork, type CouplingNetwork, type NetworkSource } from '../network/network';
+import { SCHEMA_ID, type Sidecar } from '../sidecar/types';
 import type { Spectrum1D } from '../spectrum/spectrum';
 import { deriveSiEntries, type DerivedSi } from './siEntries';
 import { formatSiLine, siLineJson, siNotes, type SiHeader } from './siLine';
@@ -17,6 +18,8 @@ export interface CompoundInput {
   /** From the note's front matter `solvent:`; null when not given. */
   solvent: string | null;
   noteLabels?: readonly string[];
+  /** Name of the 1D data file, shown as the source of 1D splittings (default `1D spectrum`). */
+  spectrum1DFile?: string;
 }
 
 export interface CompoundReport {
@@ -33,12 +36,21 @@ export interface CompoundReport {
 export const SOLVENT_MISSING = 'solvent?';
 
 export function compoundReport(input: CompoundInput): CompoundReport {
-  const network = buildNetwork(input.sources);
-  const derived = deriveSiEntries({
+  const derive = (network: CouplingNetwork): DerivedSi => deriveSiEntries({
     network, sources: input.sources,
     ...(input.spectrum1D && { spectrum1D: input.spectrum1D }),
     ...(input.noteLabels && { noteLabels: input.noteLabels }),
   });
+  let network = buildNetwork(input.sources);
+  let derived = derive(network);
+  // Second pass: the 1D splittings join the network as measurements, so they are checked against the
+  // cross-peak values (3 combined sd) and weighted into the adopted J like any other measurement.
+  if (derived.oneD.length > 0) {
+    const file = `${input.spectrum1DFile ?? '1D spectrum'} (1D multiplets)`;
+    const oneD: Sidecar = { schema: SCHEMA_ID, data: { file, sha256: '0'.repeat(64) }, picks: [], couplings: derived.oneD };
+    network = buildNetwork([...input.sources, { file, sidecar: oneD }]);
+    derived = derive(network);
+  }
   const header: SiHeader = { observeMhz: input.observeMhz, solvent: input.solvent ?? SOLVENT_MISSING };
   const notes = [
     ...(input.solvent === null ? ['no solvent: add `solvent: CDCl3` (or the one used) to the structure note\'s front matter.'] : []),

@@ -13,6 +13,7 @@
  *   second-order, makes the signal `m` with its range (siLine.ts writes no J for it).
  */
 import type { CouplingNetwork, NetworkSource } from '../network/network';
+import type { Coupling } from '../sidecar/types';
 import { pickMultiplets1D } from '../peaks/multiplets1D';
 import { naturalCompare } from '../sidecar/decimal';
 import type { Spectrum1D } from '../spectrum/spectrum';
@@ -44,6 +45,11 @@ export interface DerivedSi {
   signals: DerivedSignal[];
   /** Per-proton integral unit used for the counts (null without a 1D spectrum). */
   protonUnit: number | null;
+  /**
+   * 1D splittings attributable to one partner (the 1D tree has the letters the recorded couplings
+   * predict, and that group has a single partner label): method `1d`, for the network's consistency check.
+   */
+  oneD: Coupling[];
   notes: string[];
 }
 
@@ -142,9 +148,11 @@ export function deriveSiEntries(input: DeriveInput): DerivedSi {
   const protonsOf = (g: DerivedSignal): number => (g.integral !== null && unit !== null ? Math.max(1, Math.round(g.integral / unit)) : g.labels.length);
   const signalOf = new Map<string, DerivedSignal>();
   signals.forEach((g) => g.labels.forEach((l) => signalOf.set(l, g)));
+  const oneD: Coupling[] = [];
   const entries = signals.map((g): SiEntry => {
     const protons = protonsOf(g);
     const recorded = g.labels.length === 1 ? couplingsOf(input.network, g.labels[0] ?? '', signalOf, protonsOf, groupHz) : [];
+    collectOneD(g, recorded, oneD);
     const couplings = observed(g, recorded, notes);
     const secondOrder = couplings.some((c) => (c.flags ?? []).some((f) => SECOND_ORDER_FLAGS.has(f))) ||
       (g.analysis?.flags ?? []).some((f) => f === 'second-order');
@@ -159,7 +167,7 @@ export function deriveSiEntries(input: DeriveInput): DerivedSi {
     if (secondOrder) entry.flags = ['second-order'];
     return entry;
   });
-  return { entries, signals, protonUnit: unit, notes };
+  return { entries, signals, protonUnit: unit, notes, oneD };
 }
 
 const LETTERS = ['', 'd', 't', 'q', 'p'];
@@ -174,6 +182,20 @@ function lettersOf(cs: readonly SiCoupling[]): string {
  * whose J values differ from the recorded ones by more than 3 combined sd, the SI line follows the
  * 1D splittings (a direct observation) and a note says so; otherwise the recorded J values stand.
  */
+function collectOneD(g: DerivedSignal, recorded: SiCoupling[], out: Coupling[]): void {
+  const a = g.analysis;
+  const label = g.labels[0];
+  if (g.labels.length !== 1 || label === undefined || !a || a.flags.length > 0 || a.tree === null) return;
+  const resolved = recorded.filter((c) => !(c.flags ?? []).includes('unresolved'));
+  if (a.multiplicity !== lettersOf(recorded)) return;
+  resolved.forEach((c, i) => {
+    const o = a.couplings[i];
+    const partner = c.partners?.[0];
+    if (!o || partner === undefined || (c.partners ?? []).length !== 1) return;
+    out.push({ atoms: [label, partner], jHz: o.jHz, jSdHz: o.sdHz, method: '1d', dimension: 'F2', picks: [], flags: [] });
+  });
+}
+
 function observed(g: DerivedSignal, recorded: SiCoupling[], notes: string[]): SiCoupling[] {
   const a = g.analysis;
   if (g.labels.length !== 1 || !a || a.flags.length > 0 || a.tree === null) return recorded;
