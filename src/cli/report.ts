@@ -83,7 +83,10 @@ export function buildReports(target: string): CompoundReport[] {
 
 function markdownOf(r: CompoundReport): string {
   const lines = [`## ${r.compound}`, '', r.siLine.md, ''];
-  if (r.notes.length > 0) lines.push('Notes:', '', ...r.notes.map((n) => `- ${n}`), '');
+  // Consistency diagnostics get their own section below; the notes keep them for other callers.
+  const diagnostics = new Set(r.network.diagnostics.map((d) => d.message));
+  const notes = r.notes.filter((n) => !diagnostics.has(n));
+  if (notes.length > 0) lines.push('Notes:', '', ...notes.map((n) => `- ${n}`), '');
   lines.push('### J values (Hz; adopted value ± sd, method)', '', jTableMarkdown(r.network));
   lines.push('### Spin systems', '', ...r.network.spinSystems.map((s, i) => `${i + 1}. ${s.join(', ')}`), '');
   lines.push('### Consistency', '');
