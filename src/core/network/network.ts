@@ -3,9 +3,9 @@
  * compound's sidecars. Spin systems are the connected components; each atom pair gets an adopted
  * value and a consistency check across its measurements.
  *
- * Consistency (stated rule): two measurements of one pair agree when |J1 − J2| ≤ 3·√(σ1² + σ2²)
+ * Consistency (stated rule): two measurements of one pair agree when ||J1| − |J2|| ≤ 3·√(σ1² + σ2²)
  * (three combined standard deviations, the rule the symmetric-partner check in measure/pair.ts
- * uses). `naive` values (antiphase peak distance) are kept in the table for comparison but take
+ * uses; magnitudes, because a 1D line spacing carries no sign while a fitted geminal J may). `naive` values (antiphase peak distance) are kept in the table for comparison but take
  * part in neither the check nor the adopted value: they overestimate small J by construction.
  * Adopted value: the inverse-variance weighted mean of the other measurements when all agree;
  * otherwise the one with the smallest σ, and a diagnostic names both disagreeing sources.
