@@ -8,6 +8,7 @@ import type { WorkerLike } from './fitClient';
 import { registerInsertSi } from './notes/insertSiCommand';
 import { compoundOf } from './notes/noteFiles';
 import { registerNoteFeatures } from './notes/notesFeatures';
+import { registerCheckDiagnostics } from './review/checkDiagnostics';
 import { SiSource } from './notes/siSource';
 import { SpectrumEditorProvider, VIEW_TYPE } from './spectrumEditor';
 
@@ -30,6 +31,8 @@ export function activate(context: vscode.ExtensionContext): void {
   context.subscriptions.push(
     ...registerNoteFeatures((doc, compound, label) => si.multiplicity(doc, compound, label)),
     registerInsertSi((doc, compound, lang) => si.siLine(doc, compound, lang), compoundOf, output),
+    // `couplet check` problems (labels, repeated J, flagged J in the SI) on sidecars and notes.
+    ...registerCheckDiagnostics(),
   );
 }
 

@@ -43,6 +43,7 @@ function fakeVscode(rec: Recorded): Record<string, unknown> {
     EventEmitter,
     Disposable: { from: () => disposable },
     DiagnosticSeverity: { Error: 0, Warning: 1, Information: 2, Hint: 3 },
+    CodeActionKind: { QuickFix: 'quickfix' },
     window: {
       createOutputChannel: () => ({ appendLine: () => undefined, show: () => undefined, dispose: () => undefined }),
       registerCustomEditorProvider: (viewType: string, _p: unknown, options: unknown) => (rec.editors.push({ viewType, options }), disposable),
@@ -51,12 +52,14 @@ function fakeVscode(rec: Recorded): Record<string, unknown> {
     workspace: {
       textDocuments: [],
       createFileSystemWatcher: () => ({ onDidChange: event, onDidCreate: event, onDidDelete: event, dispose: () => undefined }),
-      onDidOpenTextDocument: event, onDidChangeTextDocument: event, onDidCloseTextDocument: event,
+      onDidOpenTextDocument: event, onDidChangeTextDocument: event, onDidCloseTextDocument: event, onDidSaveTextDocument: event,
     },
     languages: {
       createDiagnosticCollection: () => ({ set: () => undefined, delete: () => undefined, dispose: () => undefined }),
       registerCompletionItemProvider: (selector: unknown) => (rec.providers.push(`completion:${selectorLanguage(selector)}`), disposable),
       registerHoverProvider: (selector: unknown) => (rec.providers.push(`hover:${selectorLanguage(selector)}`), disposable),
+      registerCodeActionsProvider: (selector: unknown) =>
+        (rec.providers.push(`codeActions:${(Array.isArray(selector) ? selector : [selector]).map(selectorLanguage).join('+')}`), disposable),
     },
     commands: { registerCommand: (id: string) => (rec.commands.push(id), disposable) },
   };
@@ -84,10 +87,11 @@ describe('activate', () => {
     // No webviewOptions.retainContextWhenHidden: the panel restores its view with getState/setState.
     expect(rec.editors).toEqual([{ viewType: 'couplet.spectrum', options: { supportsMultipleEditorsPerDocument: true } }]);
     // Structure notes: completion and hover for markdown (VS Code API: languages.register*Provider).
-    expect(rec.providers.sort()).toEqual(['completion:markdown', 'hover:markdown']);
+    expect(rec.providers.sort()).toEqual(['codeActions:markdown+latex', 'completion:markdown', 'hover:markdown']);
     // Everything registered is handed to VS Code for disposal on deactivate: the commands, the output
     // channel, the sidecar diagnostics, the editor, the tab watcher, and the notes' 10 (their
-    // diagnostics, file watcher, two providers, three document and three watcher events).
-    expect(subscriptions.length).toBe(rec.commands.length + 4 + 10);
+    // diagnostics, file watcher, two providers, three document and three watcher events), and the
+    // check diagnostics' 4 (collection, open and save events, quick-fix provider).
+    expect(subscriptions.length).toBe(rec.commands.length + 4 + 10 + 4);
   });
 });
