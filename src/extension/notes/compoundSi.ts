@@ -16,6 +16,8 @@ export interface CompoundInput {
   readonly sidecars: readonly SidecarText[];
   /** The folder's 1D ¹H spectrum, parsed; absent when there is none. */
   readonly spectrum1D?: Spectrum1D;
+  /** Its file name (e.g. `1h.jdx`), so 1D splittings are attributed to it in the network. */
+  readonly spectrum1DFile?: string;
   /** Observe frequency from a data file's header, used when there is no 1D spectrum. */
   readonly observeMhz?: number;
   readonly solvent: string | null;
@@ -54,6 +56,7 @@ export function compoundSi(input: CompoundInput): CompoundReport {
   return compoundReport({
     compound: input.compound, sources, observeMhz, solvent: input.solvent,
     ...(input.spectrum1D && { spectrum1D: input.spectrum1D }),
+    ...(input.spectrum1D && input.spectrum1DFile !== undefined && { spectrum1DFile: input.spectrum1DFile }),
     ...(input.noteLabels.length > 0 && { noteLabels: input.noteLabels }),
   });
 }

@@ -88,7 +88,7 @@ export class SiSource {
     const m = files[0] ? OBSERVE.exec(files[0].header) : null;
     const report = compoundSi({
       compound, sidecars, solvent: front.solvent, noteLabels,
-      ...(spectrum1D && { spectrum1D }), ...(m && { observeMhz: Number(m[1]) }), ...(dataHashes && { dataHashes }),
+      ...(spectrum1D && oneD && { spectrum1D, spectrum1DFile: oneD.name }), ...(m && { observeMhz: Number(m[1]) }), ...(dataHashes && { dataHashes }),
     });
     this.results.set(folder.toString(), { key, report });
     return report;

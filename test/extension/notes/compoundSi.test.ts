@@ -31,7 +31,7 @@ function sample(c: string): Sample {
   const front = readFrontMatter(note);
   // As the insert command does: every sidecar checked against its data file's SHA-256.
   const dataHashes = new Map(readSources(sidecars).sources.map((x) => [x.file, createHash('sha256').update(readFileSync(join(dir, x.sidecar.data.file))).digest('hex')]));
-  return { note, si: compoundSi({ compound: front.compound ?? c, sidecars, spectrum1D: s, solvent: front.solvent, noteLabels: labelsInMarkdown(note.slice(front.end)), dataHashes }) };
+  return { note, si: compoundSi({ compound: front.compound ?? c, sidecars, spectrum1D: s, spectrum1DFile: '1h.jdx', solvent: front.solvent, noteLabels: labelsInMarkdown(note.slice(front.end)), dataHashes }) };
 }
 
 const apply = (t: string, e: { offset: number; length: number; text: string }): string => t.slice(0, e.offset) + e.text + t.slice(e.offset + e.length);
