@@ -21,7 +21,7 @@ async function main() {
   const bundle = await buildInHostTests();
   const ws = makeWorkspace();
   const resultFile = join(ws.root, 'inhost-result.json');
-  const server = await startServer({ env: { COUPLET_E2E_RESULT: resultFile }, logName: 'inhost-code-server.log' });
+  const server = await startServer({ env: { COUPLET_E2E_RESULT: resultFile }, logName: 'inhost-code-server.log', settings: JSON.parse(process.env.COUPLET_E2E_SETTINGS || '{}') });
   const browser = await openBrowser();
   const started = Date.now();
   let summary;

@@ -39,6 +39,14 @@ function openDoc(u: vscode.Uri): vscode.TextDocument | undefined {
 
 const docText = (u: vscode.Uri): string | undefined => openDoc(u)?.getText();
 
+/**
+ * The sidecar as VS Code sees it: the open document (unsaved edits included) or, when VS Code has
+ * dropped a clean document nobody shows, the file on disk; undefined when neither exists.
+ */
+async function sidecarText(u: vscode.Uri): Promise<string | undefined> {
+  return docText(u) ?? (await diskText(u)) ?? undefined;
+}
+
 async function diskText(u: vscode.Uri): Promise<string | null> {
   try {
     return await fs.readFile(u.fsPath, 'utf8');
@@ -124,24 +132,35 @@ export function steps(): Step[] {
         const side = sidecarOf(cosy());
         const withPick = docText(side) ?? '';
         await openSpectrum(cosy());
+        // With the webview focused, the workbench hands `undo` to the webview's own document (its text
+        // fields), not to the custom editor's edit stack; move focus off it, keeping the editor active.
+        await vscode.commands.executeCommand('workbench.action.focusStatusBar');
         await vscode.commands.executeCommand('undo');
-        await waitFor('the sidecar to be empty after undo', () => (docText(side)?.trim() === '' ? true : undefined));
+        await waitFor('the sidecar to be empty after undo', async () => ((await sidecarText(side))?.trim() === '' ? true : undefined)).catch(async (e: unknown) => {
+          // Tell a refused undo (the extension's idea of the sidecar text is stale: a further write is refused too) from a lost one.
+          const again = await acceptAt(BRIS).catch((x: unknown) => `threw ${String(x)}`);
+          throw new Error(`${e instanceof Error ? e.message : String(e)}; sidecar document dirty=${openDoc(side)?.isDirty}; on disk ${JSON.stringify((await diskText(side))?.slice(0, 80))}; a second couplet.acceptAt returned ${String(again)}`);
+        });
         await vscode.commands.executeCommand('redo');
-        await waitFor('the pick back after redo', () => (docText(side) === withPick ? true : undefined));
+        await waitFor('the pick back after redo', async () => ((await sidecarText(side)) === withPick ? true : undefined));
       },
     },
     {
       name: 'save writes the sidecar to disk in canonical form',
       run: async () => {
         const side = sidecarOf(cosy());
-        const expected = docText(side);
-        assert(expected, 'test setup: the sidecar document is not open');
+        const expected = await sidecarText(side);
+        assert(expected && openDoc(side)?.isDirty, 'test setup: no unsaved sidecar document with the pick');
         await openSpectrum(cosy());
         await vscode.commands.executeCommand('workbench.action.files.save');
         // VS Code may close the text document once it is saved and no editor shows it.
         await waitFor('the Couplet tab and the sidecar document to be clean', () => {
           const tabDirty = vscode.window.tabGroups.activeTabGroup.activeTab?.isDirty;
           return tabDirty === false && openDoc(side)?.isDirty !== true ? true : undefined;
+        }).catch(async (e: unknown) => {
+          const tab = vscode.window.tabGroups.activeTabGroup.activeTab;
+          const disk = await diskText(side);
+          throw new Error(`${e instanceof Error ? e.message : String(e)} (active tab ${tab?.label} dirty=${tab?.isDirty}; sidecar document dirty=${openDoc(side)?.isDirty}; disk ${disk === expected ? 'has' : 'lacks'} the pick)`);
         });
         const disk = await diskText(side);
         assertEqual(disk, expected, 'sidecar on disk vs the document before saving');
