@@ -171,7 +171,27 @@ export interface SettingsMessage {
   readonly settings: ViewSettings;
 }
 
-export type ToWebview = InitMessage | TileMessage | SidecarMessage | MeasuredMessage | ProgressMessage | ErrorMessage | CommandMessage | SettingsMessage;
+/** One change since another revision of the sidecar, as the panel overlays and lists it. */
+export interface ReviewMarkView {
+  readonly kind: 'added' | 'removed' | 'moved' | 'relabelled' | 're-measured' | 'other';
+  /** One line for the list, e.g. `pick p-4.12-2.34 relabelled H-3/H-4a -> H-3/H-4b`. */
+  readonly text: string;
+  /** Where to show it (a removed pick: where it was); absent for a change with no place (a manual J). */
+  readonly f2Ppm?: number;
+  readonly f1Ppm?: number;
+  /** A moved pick's old place (the arrow starts here). */
+  readonly fromF2Ppm?: number;
+  readonly fromF1Ppm?: number;
+}
+
+/** Overlay the changes since `against` (HEAD, a branch, a commit); `against` null clears the overlay. */
+export interface CompareMessage {
+  readonly type: 'compare';
+  readonly against: string | null;
+  readonly marks: readonly ReviewMarkView[];
+}
+
+export type ToWebview = InitMessage | TileMessage | SidecarMessage | MeasuredMessage | ProgressMessage | ErrorMessage | CommandMessage | SettingsMessage | CompareMessage;
 
 // ---- webview -> host ------------------------------------------------------------------------
 
@@ -251,6 +271,14 @@ function isViewSettings(v: unknown): v is ViewSettings {
     && isMethod(v.defaultMethod) && isNonNegInt(v.jDecimals);
 }
 
+const MARK_KINDS: readonly string[] = ['added', 'removed', 'moved', 'relabelled', 're-measured', 'other'];
+const isOptNum = (v: unknown): boolean => v === undefined || isNum(v);
+
+function isReviewMark(v: unknown): v is ReviewMarkView {
+  return isObj(v) && isStr(v.kind) && MARK_KINDS.includes(v.kind) && isStr(v.text)
+    && isOptNum(v.f2Ppm) && isOptNum(v.f1Ppm) && isOptNum(v.fromF2Ppm) && isOptNum(v.fromF1Ppm);
+}
+
 function isRegion(v: unknown): v is GridRegion {
   return isObj(v) && isNonNegInt(v.row0) && isNonNegInt(v.row1) && isNonNegInt(v.col0) && isNonNegInt(v.col1) && v.row0 <= v.row1 && v.col0 <= v.col1;
 }
@@ -286,6 +314,7 @@ const TO_WEBVIEW: Record<ToWebview['type'], (m: Obj) => string | null> = {
   error: (m) => (!isStr(m.message) ? 'message' : null),
   command: (m) => (!isStr(m.command) ? 'command' : null),
   settings: (m) => (!isViewSettings(m.settings) ? 'settings' : null),
+  compare: (m) => (!(m.against === null || isStr(m.against)) ? 'against' : !(Array.isArray(m.marks) && m.marks.every(isReviewMark)) ? 'marks' : null),
 };
 
 /** Validates a message from the host (the webview checks what it receives too). */
