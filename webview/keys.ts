@@ -7,6 +7,8 @@ import type { CommandMessage } from '../src/protocol';
 
 export type Action =
   | { readonly kind: 'nextPeak' | 'previousPeak' | 'measure' | 'accept' | 'label' | 'zoomToPeak' | 'resetZoom' | 'cancel' | 'removePick' }
+  /** Step through the changes since another revision (the compare overlay). */
+  | { readonly kind: 'nextChange' | 'previousChange' }
   | { readonly kind: 'pan'; readonly dx: number; readonly dy: number }
   | { readonly kind: 'zoom'; readonly factor: number };
 
@@ -41,6 +43,8 @@ export function keyAction(e: KeyLike): Action | null {
     case '0': case 'Home': return { kind: 'resetZoom' };
     case 'Escape': return { kind: 'cancel' };
     case 'Delete': case 'Backspace': return { kind: 'removePick' };
+    case 'c': return { kind: 'nextChange' };
+    case 'C': return { kind: 'previousChange' };
     default: return null;
   }
 }

@@ -10,6 +10,7 @@ import { Requests, type Rpc } from './rpc';
 import { createToolbar, type Toolbar } from './toolkit';
 import { bindInput } from './input';
 import { parseLabels } from './labels';
+import type { ReviewState } from './review';
 
 interface VsCodeApi {
   postMessage(message: FromWebview): void;
@@ -35,6 +36,25 @@ const el: Elements = {
   traceText: byId('traceText'),
 };
 const rpc: Rpc = { post: (m) => vscode.postMessage(m), requests: new Requests() };
+const changes = byId<HTMLOListElement>('changes');
+
+/** The compare overlay's list beside the plot: one item per change, the focused one marked. */
+function showChanges(r: ReviewState): void {
+  changes.hidden = r.against === null || r.marks.length === 0;
+  changes.replaceChildren(...r.marks.map((m, i) => {
+    const li = document.createElement('li');
+    li.textContent = m.text;
+    li.dataset.index = String(i);
+    if (i === r.current) li.setAttribute('aria-current', 'true');
+    return li;
+  }));
+  changes.querySelector('[aria-current="true"]')?.scrollIntoView({ block: 'nearest' });
+}
+changes.addEventListener('click', (e) => {
+  const i = Number((e.target as HTMLElement).closest('li')?.dataset.index);
+  if (panel && Number.isInteger(i)) panel.focusChange(i);
+  el.canvas.focus();
+});
 const toolbar = createToolbar(byId('toolbar'));
 let panel: Panel | null = null;
 
@@ -73,6 +93,8 @@ function start(init: InitMessage): void {
   toolbar.method.set(p.method);
   toolbar.dimension.set(p.dimension);
   toolbar.setEnabled(toolbar.dimension.element, init.spectrum.dims === 2);
+  p.onReview = showChanges;
+  showChanges(p.review);
   p.setSidecar(init.sidecar);
   const wrap = byId('plotWrap');
   p.resize({ width: wrap.clientWidth, height: wrap.clientHeight });
@@ -90,6 +112,7 @@ function onMessage(m: ToWebview): void {
       if (m.inReplyTo !== undefined && rpc.requests.reject(m.inReplyTo, m.message)) return;
       return void p?.status(m.message);
     case 'sidecar': return void p?.setSidecar(m.sidecar);
+    case 'compare': return void p?.setReview(m);
     case 'settings': {
       if (!p) return;
       p.applySettings(m.settings);

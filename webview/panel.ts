@@ -3,13 +3,14 @@
  * (input.ts) and host messages (main.ts) call its methods; drawing happens once per animation
  * frame, and contouring is spread over frames (a few ms each) so input stays responsive.
  */
-import type { ContourSettings, InitMessage, MeasurementView, PeakView, PickView, SidecarView, ViewSettings } from '../src/protocol';
+import type { CompareMessage, ContourSettings, InitMessage, MeasurementView, PeakView, PickView, SidecarView, ViewSettings } from '../src/protocol';
 import type { Rpc } from './rpc';
 import { ContourCache, setLevels, step, type CacheEntry } from './contourCache';
 import type { Action } from './keys';
 import { contourLevels, levelsKey, levelUnit, usableContours } from './levels';
 import { drawFrame, layoutFor, screenOf, type Frame, type Layout } from './plot';
 import type { View } from './scales';
+import { changeStatus, NO_REVIEW, stepChange, type ReviewState } from './review';
 import { readPalette, type Palette } from './theme';
 import { covers, planTile, type PointWindow, type TilePlan } from './tiles';
 import { drawTraces } from './traceView';
@@ -53,6 +54,9 @@ export class Panel {
   /** The peak whose last measurement failed: Accept then records a bare pick (labels only). */
   failedPeak: number | null = null;
   box: Frame['box'] = null;
+  /** Changes since another revision (the compare overlay); main.ts lists them beside the plot. */
+  review: ReviewState = NO_REVIEW;
+  onReview: ((r: ReviewState) => void) | null = null;
   /** 1D: fit the intensity axis to the visible data when the next tile arrives (after F2 zooms). */
   autoY = true;
   readonly extent: Extent;
@@ -206,7 +210,7 @@ export class Panel {
   }
 
   private frameData(tiles: readonly CacheEntry[]): Frame {
-    return { meta: this.meta, view: this.view, tiles, levelCount: this.contours.levels, peaks: this.peaks, picks: this.sidecar.picks, selected: this.selected, box: this.box };
+    return { meta: this.meta, view: this.view, tiles, levelCount: this.contours.levels, peaks: this.peaks, picks: this.sidecar.picks, selected: this.selected, box: this.box, marks: this.review.marks, markFocus: this.review.current };
   }
 
   /** Peak nearest a canvas point (CSS px), in screen distance; 1D compares positions along F2 only. */
@@ -286,6 +290,28 @@ export class Panel {
     this.status(`Accepted J = ${m.jHz.toFixed(this.settings.jDecimals)} Hz.`);
   }
 
+  setReview(m: CompareMessage): void {
+    this.review = { against: m.against, marks: m.marks, current: null };
+    this.status(changeStatus(this.review));
+    this.onReview?.(this.review);
+    this.redraw();
+  }
+
+  /** Focus a change (keyboard or list): centre the view on it, keeping the zoom. */
+  focusChange(index: number | null): void {
+    this.review = { ...this.review, current: index };
+    const m = index === null ? undefined : this.review.marks[index];
+    if (m?.f2Ppm !== undefined) {
+      const sx = Math.abs(this.view.x[0] - this.view.x[1]);
+      const sy = Math.abs(this.view.y[0] - this.view.y[1]);
+      const c = centredOn(this.extent, m.f2Ppm, m.f1Ppm ?? (this.view.y[0] + this.view.y[1]) / 2, sx, sy);
+      this.setView(this.meta.f1 ? c : { x: c.x, y: this.view.y });
+    }
+    this.status(changeStatus(this.review));
+    this.onReview?.(this.review);
+    this.redraw();
+  }
+
   /** Keyboard and host-command actions that need no text input (label is handled by main). */
   act(a: Action): void {
     const L = this.layout.plot;
@@ -306,6 +332,7 @@ export class Panel {
         return this.setView(this.meta.f1 ? c : { x: c.x, y: this.view.y });
       }
       case 'measure': return this.measure();
+      case 'nextChange': case 'previousChange': return this.focusChange(stepChange(this.review, a.kind === 'nextChange' ? 1 : -1));
       case 'cancel': this.rpc.post({ type: 'cancel' }); this.box = null; return this.redraw();
       default: return undefined;
     }

@@ -3,10 +3,11 @@
  * the box-zoom rectangle and the axes. Geometry comes from the contour cache in tile coordinates;
  * one affine map per tile takes it to device pixels, so a pan is a redraw, not a re-contour.
  */
-import type { PeakView, PickView, SpectrumMeta } from '../src/protocol';
+import type { PeakView, PickView, ReviewMarkView, SpectrumMeta } from '../src/protocol';
 import type { CacheEntry } from './contourCache';
 import { tileToGrid, type LevelRings } from './contours';
 import { pointToPixel, xScale, yScale, type Size, type View } from './scales';
+import { MARK_SHAPE, markColour } from './review';
 import { levelAlpha, type Palette } from './theme';
 
 export interface Layout {
@@ -33,6 +34,9 @@ export interface Frame {
   readonly picks: readonly PickView[];
   readonly selected: number | null;
   readonly box: { x0: number; y0: number; x1: number; y1: number } | null;
+  /** Changes since another revision (review.ts), and the one in focus. */
+  readonly marks?: readonly ReviewMarkView[];
+  readonly markFocus?: number | null;
 }
 
 const paths = new WeakMap<LevelRings, Path2D>();
@@ -152,6 +156,52 @@ function drawMarkers(ctx: CanvasRenderingContext2D, f: Frame, L: Layout, p: Pale
   }
 }
 
+/** The review overlay: one shape per kind of change, an arrow from a moved pick's old place. */
+function drawMarks(ctx: CanvasRenderingContext2D, f: Frame, L: Layout, p: Palette): void {
+  const d = L.dpr;
+  const r = 8;
+  (f.marks ?? []).forEach((m, i) => {
+    if (m.f2Ppm === undefined) return;
+    const s = screenOf(f, L, m.f2Ppm, m.f1Ppm);
+    const [x, y] = [d * s.x, d * s.y];
+    ctx.strokeStyle = markColour(m.kind, p);
+    ctx.fillStyle = ctx.strokeStyle;
+    ctx.lineWidth = (i === f.markFocus ? 3 : 1.75) * d;
+    ctx.setLineDash([]);
+    if (m.fromF2Ppm !== undefined) {
+      const o = screenOf(f, L, m.fromF2Ppm, m.fromF1Ppm);
+      const [ox, oy] = [d * o.x, d * o.y];
+      ctx.setLineDash([3 * d, 2 * d]);
+      ctx.strokeRect(ox - d * 5, oy - d * 5, d * 10, d * 10);
+      ctx.setLineDash([]);
+      ctx.beginPath(); ctx.moveTo(ox, oy); ctx.lineTo(x, y); ctx.stroke();
+      const a = Math.atan2(y - oy, x - ox);
+      ctx.beginPath();
+      ctx.moveTo(x, y);
+      ctx.lineTo(x - d * 8 * Math.cos(a - 0.4), y - d * 8 * Math.sin(a - 0.4));
+      ctx.lineTo(x - d * 8 * Math.cos(a + 0.4), y - d * 8 * Math.sin(a + 0.4));
+      ctx.closePath(); ctx.fill();
+    }
+    ctx.beginPath();
+    switch (MARK_SHAPE[m.kind]) {
+      case 'circle': ctx.arc(x, y, d * r, 0, 2 * Math.PI); break;
+      case 'crossedCircle':
+        ctx.setLineDash([3 * d, 2 * d]);
+        ctx.arc(x, y, d * r, 0, 2 * Math.PI); ctx.stroke();
+        ctx.setLineDash([]); ctx.beginPath();
+        ctx.moveTo(x - d * 5, y - d * 5); ctx.lineTo(x + d * 5, y + d * 5);
+        ctx.moveTo(x - d * 5, y + d * 5); ctx.lineTo(x + d * 5, y - d * 5);
+        break;
+      case 'square': ctx.rect(x - d * r, y - d * r, 2 * d * r, 2 * d * r); break;
+      case 'diamond': ctx.moveTo(x, y - d * (r + 2)); ctx.lineTo(x + d * (r + 2), y); ctx.lineTo(x, y + d * (r + 2)); ctx.lineTo(x - d * (r + 2), y); ctx.closePath(); break;
+      case 'triangle': ctx.moveTo(x, y - d * (r + 2)); ctx.lineTo(x + d * (r + 2), y + d * r); ctx.lineTo(x - d * (r + 2), y + d * r); ctx.closePath(); break;
+      case 'dot': ctx.arc(x, y, d * 3, 0, 2 * Math.PI); break;
+    }
+    ctx.stroke();
+  });
+  ctx.lineWidth = d;
+}
+
 function drawAxes(ctx: CanvasRenderingContext2D, f: Frame, L: Layout, p: Palette): void {
   const d = L.dpr;
   const xs = xScale(f.view, L.plot);
@@ -199,6 +249,7 @@ export function drawFrame(ctx: CanvasRenderingContext2D, f: Frame, L: Layout, p:
   if (f.meta.dims === 2) drawContours(ctx, f, L, p);
   else drawLine1D(ctx, f, L, p);
   drawMarkers(ctx, f, L, p);
+  drawMarks(ctx, f, L, p);
   if (f.box) {
     ctx.strokeStyle = p.focus;
     ctx.setLineDash([3 * d, 3 * d]);
