@@ -4,6 +4,7 @@
  */
 import * as vscode from 'vscode';
 import type { CommandMessage } from '../protocol';
+import { compareWith } from './review/compareCommand';
 import { readSettings } from './settings';
 import { VIEW_TYPE, type OpenPanel, type SpectrumEditorProvider } from './spectrumEditor';
 import { nearestPeakIndex } from './spectrumModel';
@@ -74,6 +75,7 @@ export function registerCommands(provider: SpectrumEditorProvider, output: vscod
         { modal: true, detail: 'Do this only after checking that the picks still fit the changed data.' }, 'Record New Hash');
       if (answer === 'Record New Hash') await p.session.recordDataHash();
     })),
+    vscode.commands.registerCommand('couplet.compareWith', () => withPanel((p) => compareWith(p))),
     vscode.commands.registerCommand('couplet.acceptAt', (args: unknown) => withPanel(async (p) => {
       if (!isAcceptAtArgs(args)) throw new Error('couplet.acceptAt needs { f2Ppm, f1Ppm?, labels?, method?, dimension? }');
       const index = nearestPeakIndex(p.session.model, args.f2Ppm, args.f1Ppm);
