@@ -29,7 +29,7 @@ export function activate(context: vscode.ExtensionContext): void {
   // Structure notes: label completion, hover, diagnostics, and the SI line command.
   const si = new SiSource();
   context.subscriptions.push(
-    ...registerNoteFeatures((doc, compound, label) => si.multiplicity(doc, compound, label)),
+    ...registerNoteFeatures(si),
     registerInsertSi((doc, compound, lang) => si.siLine(doc, compound, lang), compoundOf, output),
     // `couplet check` problems (labels, repeated J, flagged J in the SI) on sidecars and notes.
     ...registerCheckDiagnostics(),

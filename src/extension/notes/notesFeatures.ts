@@ -10,9 +10,7 @@ import { readSettings } from '../settings';
 import { readFrontMatter } from './frontMatter';
 import { hoverText } from './hoverText';
 import { labelCompletions, labelPrefixStart } from './labelCompletion';
-import { noteProblems } from './noteDiagnostics';
-import { buildNetwork } from '../../core/network';
-import { readSources } from './compoundSi';
+import { noteProblems, type PairProblem } from './noteDiagnostics';
 import { buildLabelIndex } from './labelIndex';
 import { compoundIndex, compoundNoteLabels, compoundOf, compoundSidecars } from './noteFiles';
 
@@ -20,7 +18,12 @@ const MARKDOWN: vscode.DocumentSelector = { language: 'markdown' };
 /** Typing stops for this long before a note's diagnostics are recomputed (they read files). */
 const DEBOUNCE_MS = 300;
 
-export type MultiplicityOf = (note: vscode.TextDocument, compound: string, label: string) => Promise<string | undefined>;
+/** What the compound's SI derivation knows, for hover and diagnostics (siSource.ts). */
+export interface NoteAnalysis {
+  multiplicity(note: vscode.TextDocument, compound: string, label: string): Promise<string | undefined>;
+  /** J values of one pair that disagree (COSY, symmetric partner, 1D), as the report's network finds them. */
+  pairProblems(note: vscode.TextDocument, compound: string): Promise<readonly PairProblem[]>;
+}
 
 function completionProvider(): vscode.CompletionItemProvider {
   return {
@@ -43,7 +46,7 @@ function completionProvider(): vscode.CompletionItemProvider {
   };
 }
 
-function hoverProvider(multiplicity: MultiplicityOf): vscode.HoverProvider {
+function hoverProvider(analysis: NoteAnalysis): vscode.HoverProvider {
   return {
     async provideHover(doc, position) {
       const compound = compoundOf(doc);
@@ -55,7 +58,7 @@ function hoverProvider(multiplicity: MultiplicityOf): vscode.HoverProvider {
       const range = new vscode.Range(position.line, hit.offset, position.line, hit.offset + hit.label.length);
       if (!info) return new vscode.Hover(`**${hit.label}**: no spectrum of this compound assigns it yet.`, range);
       const jDecimals = readSettings((k) => vscode.workspace.getConfiguration().get(k)).jDecimals;
-      const m = await multiplicity(doc, compound, hit.label).catch(() => undefined);
+      const m = await analysis.multiplicity(doc, compound, hit.label).catch(() => undefined);
       return new vscode.Hover(new vscode.MarkdownString(hoverText(info, { jDecimals, ...(m !== undefined && { multiplicity: m }) })), range);
     },
   };
@@ -64,6 +67,8 @@ function hoverProvider(multiplicity: MultiplicityOf): vscode.HoverProvider {
 class NoteDiagnostics implements vscode.Disposable {
   private readonly collection = vscode.languages.createDiagnosticCollection('couplet-notes');
   private readonly timers = new Map<string, ReturnType<typeof setTimeout>>();
+
+  constructor(private readonly analysis: NoteAnalysis) {}
 
   schedule(doc: vscode.TextDocument): void {
     const key = doc.uri.toString();
@@ -83,8 +88,8 @@ class NoteDiagnostics implements vscode.Disposable {
       return;
     }
     const sidecars = await compoundSidecars(doc.uri);
-    const network = buildNetwork(readSources(sidecars).sources);
-    const problems = noteProblems(text, front, buildLabelIndex(sidecars), network.diagnostics);
+    const pairs = front.compound === null ? [] : await this.analysis.pairProblems(doc, front.compound).catch(() => []);
+    const problems = noteProblems(text, front, buildLabelIndex(sidecars), pairs);
     if (doc.isClosed || doc.getText() !== text) return; // a newer refresh is on its way
     this.collection.set(doc.uri, problems.map((p) => {
       const d = new vscode.Diagnostic(new vscode.Range(doc.positionAt(p.offset), doc.positionAt(p.offset + p.length)), p.message,
@@ -109,8 +114,8 @@ class NoteDiagnostics implements vscode.Disposable {
   }
 }
 
-export function registerNoteFeatures(multiplicity: MultiplicityOf): vscode.Disposable[] {
-  const diagnostics = new NoteDiagnostics();
+export function registerNoteFeatures(analysis: NoteAnalysis): vscode.Disposable[] {
+  const diagnostics = new NoteDiagnostics(analysis);
   const sidecars = vscode.workspace.createFileSystemWatcher('**/*.couplet.yaml');
   diagnostics.refreshAll();
   return [
@@ -118,7 +123,7 @@ export function registerNoteFeatures(multiplicity: MultiplicityOf): vscode.Dispo
     sidecars,
     // `-` triggers after `H`; letters already trigger completion as the chemist types.
     vscode.languages.registerCompletionItemProvider(MARKDOWN, completionProvider(), '-'),
-    vscode.languages.registerHoverProvider(MARKDOWN, hoverProvider(multiplicity)),
+    vscode.languages.registerHoverProvider(MARKDOWN, hoverProvider(analysis)),
     vscode.workspace.onDidOpenTextDocument((d) => diagnostics.schedule(d)),
     vscode.workspace.onDidChangeTextDocument((e) => {
       if (e.document.languageId === 'markdown') diagnostics.schedule(e.document);

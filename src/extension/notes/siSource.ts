@@ -15,6 +15,7 @@ import { compoundSi, multiplicities, readSources, siText } from './compoundSi';
 import { readFrontMatter } from './frontMatter';
 import type { SiText } from './insertSiCommand';
 import { compoundSidecars } from './noteFiles';
+import type { PairProblem } from './noteDiagnostics';
 import type { NoteLanguage } from './siRegion';
 
 const SPECTRUM = /\.(jdx|dx|jcamp)$/i;
@@ -82,8 +83,8 @@ export class SiSource {
     let dataHashes: Map<string, string> | undefined;
     if (strict) dataHashes = await this.hashes(folder, sidecars);
     else if (cached?.key === key) return cached.report;
-    // The first 1D file by name, as `couplet report` takes it: a 2D file's header declares NTUPLES.
-    const oneD = files.find((f) => !/^##DATA CLASS=\s*NTUPLES/im.test(f.header));
+    // The first 1D file by name, as `couplet report` takes it: its header declares XYDATA (2D: NTUPLES).
+    const oneD = files.find((f) => /^##(?:DATA CLASS=\s*XYDATA|XYDATA=)/im.test(f.header));
     const spectrum1D = oneD ? await this.spectrum(vscode.Uri.joinPath(folder, oneD.name), oneD.mtime) : null;
     const m = files[0] ? OBSERVE.exec(files[0].header) : null;
     const report = compoundSi({
@@ -110,8 +111,13 @@ export class SiSource {
     const text = await readText(uri);
     let spectrum: Spectrum1D | null = null;
     if (text !== null) {
-      const s = parseJcamp(text, uri.path.split('/').pop() ?? uri.path);
-      spectrum = s.dims === 1 ? s : null;
+      try {
+        const s = parseJcamp(text, uri.path.split('/').pop() ?? uri.path);
+        spectrum = s.dims === 1 ? s : null;
+      } catch {
+        // An unreadable 1D file leaves the line without integrals; opening it in the panel says why.
+        spectrum = null;
+      }
     }
     this.spectra.set(uri.toString(), { mtime, spectrum });
     return spectrum;
@@ -121,6 +127,15 @@ export class SiSource {
   async siLine(doc: vscode.TextDocument, compound: string, lang: NoteLanguage): Promise<SiText> {
     const note = await this.noteFor(doc, compound);
     return siText(await this.compound(note.uri, note.text, compound, true), lang);
+  }
+
+  /** For the note's diagnostics: disagreeing J values of one pair (empty when nothing can be derived). */
+  async pairProblems(doc: vscode.TextDocument, compound: string): Promise<readonly PairProblem[]> {
+    try {
+      return (await this.compound(doc.uri, doc.getText(), compound, false)).network.diagnostics;
+    } catch {
+      return [];
+    }
   }
 
   /** For the hover: the label's multiplicity as the SI line writes it; undefined when it cannot be derived. */

@@ -5,11 +5,14 @@
  * moving beside it. Only the public VS Code API and built-in commands such as
  * vscode.executeHoverProvider / vscode.executeCompletionItemProvider (VS Code "Built-in Commands").
  */
+import { createHash } from 'node:crypto';
 import * as fs from 'node:fs/promises';
 import * as vscode from 'vscode';
 import { assert, assertEqual, waitFor, type Step } from './harness';
 
-const HASH = 'ab'.repeat(32);
+/** A header-only data file: enough for the observe frequency; the sidecar records its real hash. */
+const DATA = '##TITLE= header only\n##.OBSERVE FREQUENCY= 600.13\n##END=\n';
+const HASH = createHash('sha256').update(DATA).digest('hex');
 const NOTE = '---\ncompound: demo\nsolvent: CDCl3\n---\n\n# Demo\n\nH-3 couples to H-4a. H-9 is not picked.\n\nData: \n';
 const SIDECAR = `schema: couplet-sidecar/1
 data:
@@ -64,7 +67,7 @@ export function noteSteps(): Step[] {
         await fs.mkdir(demo('').fsPath, { recursive: true });
         await fs.writeFile(demo('demo.md').fsPath, NOTE);
         await fs.writeFile(demo('x.jdx.couplet.yaml').fsPath, SIDECAR);
-        await fs.writeFile(demo('x.jdx').fsPath, '##TITLE= header only\n##.OBSERVE FREQUENCY= 600.13\n##END=\n');
+        await fs.writeFile(demo('x.jdx').fsPath, DATA);
         const editor = await openNote();
         const at = editor.document.positionAt(NOTE.indexOf('H-3 couples'));
         const text = await waitFor('a hover on H-3', async () => {
