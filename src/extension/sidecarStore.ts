@@ -6,12 +6,16 @@
 import * as vscode from 'vscode';
 import { lineDiffEdits } from '../core/sidecar';
 import type { SidecarStore } from './panelSession';
+import { LatestText } from './latestText';
+import { SaveQueue } from './saveQueue';
 
 export class VsSidecarStore implements SidecarStore, vscode.Disposable {
   readonly fileName: string;
   private cached: string | null = null;
   private readonly subscriptions: vscode.Disposable[] = [];
   private readonly changed = new vscode.EventEmitter<void>();
+  private readonly saves = new SaveQueue(() => this.openDocument(), () => this.diskText());
+  private readonly reads = new LatestText(() => this.openDocument()?.getText(), () => this.readFile());
   /** Fires after the text changed, for whatever reason. */
   readonly onDidChange = this.changed.event;
 
@@ -56,13 +60,16 @@ export class VsSidecarStore implements SidecarStore, vscode.Disposable {
 
   /** The open document wins (it may hold unsaved edits); otherwise the file on disk, or null if there is none. */
   async readDisk(): Promise<void> {
-    const doc = this.openDocument();
-    if (doc) return this.update(doc.getText());
+    const text = await this.reads.read();
+    if (text !== undefined) this.update(text);
+  }
+
+  private async readFile(): Promise<string | null> {
     try {
-      this.update(new TextDecoder('utf-8').decode(await vscode.workspace.fs.readFile(this.uri)));
+      return new TextDecoder('utf-8').decode(await vscode.workspace.fs.readFile(this.uri));
     } catch (e) {
-      if (e instanceof vscode.FileSystemError && e.code === 'FileNotFound') this.update(null);
-      else throw e;
+      if (e instanceof vscode.FileSystemError && e.code === 'FileNotFound') return null;
+      throw e;
     }
   }
 
@@ -90,11 +97,13 @@ export class VsSidecarStore implements SidecarStore, vscode.Disposable {
     return ok;
   }
 
-  /** Saves the document (nothing to do when it is not open or not dirty). */
-  async save(): Promise<boolean> {
-    const doc = this.openDocument();
-    // Saving a clean document may report false although nothing is wrong (e.g. after undoing to the saved text).
-    return doc?.isDirty ? doc.save() : true;
+  /** Saves the document (nothing to do when it is not open or not dirty); overlapping calls run in turn. */
+  save(): Promise<boolean> {
+    return this.saves.save();
+  }
+
+  private diskText(): Promise<string | null> {
+    return this.readFile().catch(() => null);
   }
 
   /** Back to the text on disk: the document is replaced by it and saved, so it is no longer dirty. */
