@@ -21,7 +21,11 @@ async function main() {
   const bundle = await buildInHostTests();
   const ws = makeWorkspace();
   const resultFile = join(ws.root, 'inhost-result.json');
-  const server = await startServer({ env: { COUPLET_E2E_RESULT: resultFile }, logName: 'inhost-code-server.log', settings: JSON.parse(process.env.COUPLET_E2E_SETTINGS || '{}') });
+  // VS Code in the browser saves dirty files after 1 s by default (files.autoSave "afterDelay"); the
+  // steps check the dirty/undo/save sequence as the desktop default ("off") has it. The UI tests keep
+  // the browser default, so the auto-saved path is exercised there.
+  const settings = { 'files.autoSave': 'off', ...JSON.parse(process.env.COUPLET_E2E_SETTINGS || '{}') };
+  const server = await startServer({ env: { COUPLET_E2E_RESULT: resultFile }, logName: 'inhost-code-server.log', settings });
   const browser = await openBrowser();
   const started = Date.now();
   let summary;
