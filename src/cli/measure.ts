@@ -131,6 +131,7 @@ const FLAG_MEANINGS: Readonly<Record<string, string>> = {
   fit_poor: 'the residual is well above the noise (overlap, more couplings, phase or baseline); sd was inflated; inspect the traces.',
   f1_coarse: 'measured in F1, whose resolution is several Hz per point.',
   equivalent_partner: 'one of the two symmetric cross peaks reads 2 or 3 times the other (a CH2/CH3 partner): the smaller value is J.',
+  ambiguous_multiplet: 'a smaller J with a CH2/CH3 neighbour or one more coupling fits this multiplet as well as the larger reading; the smaller is reported; check the multiplicity.',
   partner_disagrees: 'the symmetric cross peak gives a different J (not a multiple of 2 or 3); check for overlap or second-order effects.',
 };
 

@@ -2,6 +2,7 @@ import { resolutionHz, type Axis } from '../spectrum/axis';
 import type { WindowFunction } from '../spectrum/processing';
 import { selectModel, uncertainty, type FitContext, type Selection, type Uncertainty } from './fit';
 import { processedLine, pseudoVoigtLine, type LineModel } from './lineshape';
+import { boundedCoupling, boundedSlope } from './model';
 
 /**
  * When a file does not record its processing, the line shape is a guess, and a fit under one guess
@@ -82,7 +83,8 @@ function chi2Band(ctx: FitContext): number {
 function fitFamily(ctx: FitContext, family: Family, maxPassive: number, centre: number, jApp: number): FamilyFit {
   const sel = selectModel(ctx, family.line, maxPassive, centre, jApp);
   const unc = uncertainty(ctx, sel.fit);
-  return { family, sel, unc, jHz: Math.abs(sel.fit.theta[1] ?? 0), jSdHz: Math.sqrt(Math.max(0, unc.cov.get(1, 1))) };
+  return { family, sel, unc, jHz: Math.abs(boundedCoupling(sel.fit.theta[1] ?? 0)),
+    jSdHz: Math.sqrt(Math.max(0, unc.cov.get(1, 1))) * boundedSlope(sel.fit.theta[1] ?? 0) };
 }
 
 /** Fits every candidate family and averages J over those the data do not reject. */

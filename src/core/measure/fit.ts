@@ -2,7 +2,7 @@ import type { Matrix } from 'ml-matrix';
 import { pseudoInverse } from 'ml-matrix';
 import { applyCorrelation, dot, jtRj, type NoiseCorrelation } from './correlation';
 import { covarianceSandwich, levenbergMarquardt, type ResidualFn } from './lm';
-import { apparentFwhm, makeTheta, paramCount, passiveIndex, pattern, type ModelSpec } from './model';
+import { apparentFwhm, boundedCoupling, groupSize, makeTheta, paramCount, passiveIndex, pattern, type ModelSpec } from './model';
 import type { LineModel } from './lineshape';
 import type { TraceBlock } from './traces';
 
@@ -65,15 +65,21 @@ export function fitFrom(ctx: FitContext, spec: ModelSpec, start: ArrayLike<numbe
   return { spec, theta: lm.params, rss: lm.rss, jac: lm.jacobian, ...p };
 }
 
+/** A starting point: the model (its groups may differ between starts) and its parameters. */
+interface Start {
+  spec: ModelSpec;
+  th: Float64Array;
+}
+
 /** Multi-start: a short run from every start, then the best one run to convergence. */
-function bestOf(ctx: FitContext, spec: ModelSpec, starts: Float64Array[]): FitResult {
+function bestOf(ctx: FitContext, starts: Start[]): FitResult {
   let best: FitResult | undefined;
   for (const s of starts) {
-    const r = fitFrom(ctx, spec, s, 10);
+    const r = fitFrom(ctx, s.spec, s.th, 10);
     if (!best || r.rss < best.rss) best = r;
   }
   if (!best) throw new RangeError('no starting values');
-  return fitFrom(ctx, spec, best.theta);
+  return fitFrom(ctx, best.spec, best.theta);
 }
 
 /** Residual sum of squares of the projected problem (no Jacobian): cheap enough for grid searches. */
@@ -98,23 +104,41 @@ function couplingGrid(ctx: FitContext, w: number): number[] {
  * than a local fit, and they keep the fit out of the local minima that swap active and passive
  * splittings or lock onto an outer pair of lines.
  */
-function gridStarts(ctx: FitContext, spec: ModelSpec, base: Float64Array, w: number, widths: number[], keep = 2): Float64Array[] {
+function gridStarts(ctx: FitContext, specs: ModelSpec[], base: Float64Array, w: number, widths: number[], keep = 2): Start[] {
   const grid = couplingGrid(ctx, w);
-  const jp = spec.passives > 0 ? passiveIndex(spec, spec.passives - 1) : -1;
-  const scored: { rss: number; th: Float64Array }[] = [];
-  for (const width of widths) {
-    for (const j of grid) {
-      for (const p of jp >= 0 ? grid : [0]) {
-        const th = Float64Array.from(base);
-        th[1] = j;
-        th[2] = width;
-        if (jp >= 0) th[jp] = p;
-        scored.push({ rss: rssAt(ctx, spec, th), th });
+  const scored: { rss: number; spec: ModelSpec; th: Float64Array }[] = [];
+  for (const spec of specs) {
+    const jp = spec.passives > 0 ? passiveIndex(spec, spec.passives - 1) : -1;
+    for (const width of widths) {
+      for (const j of grid) {
+        for (const p of jp >= 0 ? grid : [0]) {
+          const th = Float64Array.from(base);
+          th[1] = j;
+          th[2] = width;
+          if (jp >= 0) th[jp] = p;
+          scored.push({ rss: rssAt(ctx, spec, th), spec, th });
+        }
       }
     }
   }
   scored.sort((a, b) => a.rss - b.rss);
-  return scored.slice(0, keep).map((x) => x.th);
+  return scored.slice(0, keep);
+}
+
+/** Equivalent protons a passive coupling may stand for (a CH, CH2 or CH3 neighbour). */
+export const MAX_GROUP = 3;
+
+/**
+ * Passive protons a model may hold in all (with the active partner, 6 coupled protons, as the splitting
+ * tree of the 1D analysis allows): bounds the line count 2 Π(n_i + 1), which sets the fit time.
+ */
+export const MAX_PASSIVE_PROTONS = 5;
+
+/** The models with one more passive coupling than prev: the new one to 1, 2 or 3 equivalent protons. */
+function nextSpecs(prev: ModelSpec): ModelSpec[] {
+  const groups = Array.from({ length: prev.passives }, (_, i) => groupSize(prev, i));
+  const used = groups.reduce((a, b) => a + b, 0);
+  return Array.from({ length: Math.min(MAX_GROUP, MAX_PASSIVE_PROTONS - used) }, (_, n) => ({ line: prev.line, passives: prev.passives + 1, groups: [...groups, n + 1] }));
 }
 
 /** Width parameters to try before any fit: natural widths (processed line) or log FWHM (pseudo-Voigt). */
@@ -131,7 +155,7 @@ function firstWidths(spec: ModelSpec, jApp: number): number[] {
 const CHI2_P001 = [10.83, 13.82, 16.27, 18.47]; // degrees of freedom 1..4
 
 /** Parameters of the model with one more passive coupling: the old ones, then J and the new Jp given. */
-function startWithPassive(fit: FitResult, next: ModelSpec, j: number, jp: number): Float64Array {
+export function startWithPassive(fit: FitResult, next: ModelSpec, j: number, jp: number): Float64Array {
   const th = new Float64Array(paramCount(next));
   th.set(fit.theta.subarray(0, passiveIndex(fit.spec, 0)));
   th[1] = j;
@@ -150,12 +174,25 @@ const RESOLVABLE_FRACTION = 0.25;
 
 function resolvable(fit: FitResult): boolean {
   const w = apparentFwhm(fit.spec, fit.theta);
-  const j = Math.abs(fit.theta[1] ?? 0);
+  const j = Math.abs(boundedCoupling(fit.theta[1] ?? 0));
   for (let i = 0; i < fit.spec.passives; i++) {
-    const jp = Math.abs(fit.theta[passiveIndex(fit.spec, i)] ?? 0);
+    const jp = Math.abs(boundedCoupling(fit.theta[passiveIndex(fit.spec, i)] ?? 0));
     if (jp < RESOLVABLE_FRACTION * w || Math.abs(jp - j) < RESOLVABLE_FRACTION * w) return false;
   }
   return true;
+}
+
+/**
+ * Likelihood-ratio statistic of a larger model against a smaller one: for nested least-squares models
+ * the drop in RSS is the squared projection of the noise on the change d of the fitted values, so
+ * under the smaller model ΔRSS / (σ² dᵀRd / dᵀd) follows χ²(df) even with correlated noise R.
+ */
+export function lrStat(ctx: FitContext, small: FitResult, large: FitResult, scale: number): number {
+  const m = ctx.block.freqs.length;
+  const d = Float64Array.from(large.fitted, (v, i) => v - (small.fitted[i] ?? 0));
+  const dd = dot(d, d);
+  const varFactor = dd > 0 ? dot(d, applyCorrelation(d, ctx.block.positions, m, ctx.rhoAlong, ctx.rhoAcross)) / dd : 1;
+  return (small.rss - large.rss) / (ctx.sigma ** 2 * varFactor * scale);
 }
 
 export interface Selection {
@@ -172,37 +209,39 @@ export interface Selection {
 export function selectModel(ctx: FitContext, line: LineModel, maxPassive: number, centre: number, jApp: number): Selection {
   const first: ModelSpec = { line, passives: 0 };
   const w0 = Math.max(jApp, 1e-3);
-  const chain = [bestOf(ctx, first, gridStarts(ctx, first, makeTheta(first, centre, jApp, 1, []), w0, firstWidths(first, jApp)))];
+  const chain = [bestOf(ctx, gridStarts(ctx, [first], makeTheta(first, centre, jApp, 1, []), w0, firstWidths(first, jApp)))];
   for (let k = 1; k <= maxPassive; k++) {
     const prev = chain[k - 1] as FitResult;
-    const next: ModelSpec = { line, passives: k };
+    // Beyond two couplings only while the previous one was significant: saves fit time on simple multiplets.
+    if (nextSpecs(prev.spec).length === 0) break;
+    if (k > 2 && !(lrStat(ctx, chain[k - 2] as FitResult, prev, 1) > (CHI2_P001[0] ?? Infinity))) break;
+    const specs = nextSpecs(prev.spec);
+    const next = specs[0] as ModelSpec;
     const w = apparentFwhm(prev.spec, prev.theta);
     const base = startWithPassive(prev, next, prev.theta[1] ?? 0, 0);
     // Widths too: a smaller model may have bent the width to mimic the missing splitting.
     const widths = [prev.theta[2] ?? 0, firstWidths(next, w)[1] ?? 0];
-    chain.push(bestOf(ctx, next, gridStarts(ctx, next, base, w, widths)));
+    chain.push(bestOf(ctx, gridStarts(ctx, specs, base, w, widths, 3)));
   }
   // When even the largest model leaves more than the noise, judge every step against that
   // residual level (the F-test form), so a still-incomplete model cannot veto the next coupling.
-  const scale = Math.max(1, uncertainty(ctx, chain[maxPassive] as FitResult).chi2Reduced);
-  const m = ctx.block.freqs.length;
+  const last = chain.length - 1;
+  const scale = Math.max(1, uncertainty(ctx, chain[last] as FitResult).chi2Reduced);
   let fit = chain[0] as FitResult;
-  for (let k = 1; k <= maxPassive; k++) {
+  for (let k = 1; k <= last; k++) {
     // Compared with the best model so far (not only the previous one): an intermediate model can be
     // a poor local fit while the next one, with all the couplings, is right.
     const cand = chain[k] as FitResult;
-    const d = Float64Array.from(cand.fitted, (v, i) => v - (fit.fitted[i] ?? 0));
-    const dd = dot(d, d);
-    const varFactor = dd > 0 ? dot(d, applyCorrelation(d, ctx.block.positions, m, ctx.rhoAlong, ctx.rhoAcross)) / dd : 1;
-    const stat = (fit.rss - cand.rss) / (ctx.sigma ** 2 * varFactor * scale);
     const df = k - fit.spec.passives;
-    if (stat > (CHI2_P001[df - 1] ?? Infinity) && resolvable(cand)) fit = cand;
+    if (lrStat(ctx, fit, cand, scale) > (CHI2_P001[df - 1] ?? Infinity) && resolvable(cand)) fit = cand;
   }
   const spec = fit.spec;
   const notes = [
     `Passive couplings chosen by a likelihood-ratio test at p < 0.001 (chi-squared, 1 degree of freedom, ` +
       `correlated noise accounted for, scaled by the largest model's residual when it exceeds the noise; a coupling within a quarter ` +
-      `linewidth of 0 or of J is not kept), 0 to ${maxPassive} tried; kept ${spec.passives}.`,
+      `linewidth of 0 or of J is not kept), 0 to ${maxPassive} tried (each a coupling to 1, 2 or 3 equivalent protons, ` +
+      `binomial in-phase pattern; beyond 2 only while the previous one was significant); kept ${spec.passives}` +
+      (spec.passives > 0 ? ` (equivalent protons: ${Array.from({ length: spec.passives }, (_, i) => groupSize(spec, i)).join(', ')}).` : '.'),
   ];
   return { fit, notes };
 }

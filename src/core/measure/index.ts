@@ -3,16 +3,20 @@ import { estimateNoise } from '../spectrum/noise';
 import type { Spectrum2D } from '../spectrum/spectrum';
 import { fitAssumedShape } from './assumedShape';
 import { correlationFromProcessing, estimateCorrelation, type NoiseCorrelation } from './correlation';
-import { selectModel, uncertainty, type FitContext, type FitResult } from './fit';
+import { selectModel, uncertainty, type FitContext, type FitResult, type Selection } from './fit';
+import { preferSmallerActive } from './multiplet';
 import { qualityFlags } from './flags';
 import { processedLine, pseudoVoigtLine } from './lineshape';
-import { apparentFwhm, lineWidth, mixFraction, passiveIndex } from './model';
+import { apparentFwhm, boundedCoupling, boundedSlope, lineWidth, mixFraction, passiveIndex } from './model';
 import { naiveSplitting } from './naive';
 import { extractTraces, ppmOf, sampleTraces, type TraceBlock } from './traces';
-import { MeasureError, type CrossPeakInput, type Measurement, type MeasureOptions, type TraceFit } from './types';
+import { MeasureError, type CrossPeakInput, type Measurement, type QualityFlag, type MeasureOptions, type TraceFit } from './types';
 
 export { MeasureError } from './types';
 export type { QualityFlag, TraceFit, Measurement, MeasureOptions, CrossPeakInput } from './types';
+
+/** Passive couplings tried by default: a CH next to a CH3 and a CH2 and one more proton has four. */
+const DEFAULT_MAX_PASSIVE = 4;
 
 function checkOptions(o: MeasureOptions): void {
   if (o.maxPassive !== undefined && !(Number.isInteger(o.maxPassive) && o.maxPassive >= 0 && o.maxPassive <= 4)) {
@@ -109,9 +113,13 @@ export function measureCrossPeak(s: Spectrum2D, peak: CrossPeakInput, opts: Meas
   }
   // Unknown processing: several line shapes, J averaged over those the data do not reject (assumedShape.ts).
   const averaged = method === 'fit' && !block.alongProcessing
-    ? fitAssumedShape(ctx, block.along, opts.maxPassive ?? 2, start.centreHz, start.jHz)
+    ? fitAssumedShape(ctx, block.along, opts.maxPassive ?? DEFAULT_MAX_PASSIVE, start.centreHz, start.jHz)
     : undefined;
-  const sel = averaged?.best.sel ?? selectModel(ctx, line, method === 'fit' ? opts.maxPassive ?? 2 : 0, start.centreHz, start.jHz);
+  const maxPassive = method === 'fit' ? opts.maxPassive ?? DEFAULT_MAX_PASSIVE : 0;
+  const chosen = averaged ? undefined : selectModel(ctx, line, maxPassive, start.centreHz, start.jHz);
+  // The multiplet check (multiplet.ts) for the exact line shape; the assumed-shape average keeps its own choice.
+  const checked = chosen && method === 'fit' ? preferSmallerActive(ctx, chosen, maxPassive) : undefined;
+  const sel = averaged?.best.sel ?? checked ?? (chosen as Selection);
   const unc = averaged?.best.unc ?? uncertainty(ctx, sel.fit);
   const fit = sel.fit;
   const [linewidthHz, linewidthSdHz] = linewidthWithSd(fit, unc.cov.get(2, 2));
@@ -132,16 +140,18 @@ export function measureCrossPeak(s: Spectrum2D, peak: CrossPeakInput, opts: Meas
       '(parabolic interpolation); it overestimates J near and below the linewidth. The linewidth, chi-squared and the ' +
       'fitted traces come from a model fit without passive couplings.');
   } else {
-    jHz = averaged?.jHz ?? Math.abs(fit.theta[1] ?? 0);
-    jSdHz = averaged?.jSdHz ?? sd(unc.cov, 1);
+    jHz = averaged?.jHz ?? Math.abs(boundedCoupling(fit.theta[1] ?? 0));
+    jSdHz = averaged?.jSdHz ?? sd(unc.cov, 1) * boundedSlope(fit.theta[1] ?? 0);
     centreHz = fit.theta[0] ?? 0;
     notes.push(...sel.notes, ...(averaged?.notes ?? []));
     notes.push(`Natural linewidth ${lineWidth(fit.spec, fit.theta).toFixed(2)} Hz; uncertainty from the fit covariance with the ` +
       'measured noise, correlation between points included (sandwich estimator)' + (unc.inflated ? `, scaled by sqrt(chi2_red) = ${Math.sqrt(chi2).toFixed(2)}.` : '.'));
   }
-  const passiveHz = Array.from({ length: method === 'fit' ? fit.spec.passives : 0 }, (_, i) => Math.abs(fit.theta[passiveIndex(fit.spec, i)] ?? 0));
-  const passiveSdHz = passiveHz.map((_, i) => sd(unc.cov, passiveIndex(fit.spec, i)));
+  const passiveHz = Array.from({ length: method === 'fit' ? fit.spec.passives : 0 }, (_, i) => Math.abs(boundedCoupling(fit.theta[passiveIndex(fit.spec, i)] ?? 0)));
+  const passiveSdHz = passiveHz.map((_, i) => sd(unc.cov, passiveIndex(fit.spec, i)) * boundedSlope(fit.theta[passiveIndex(fit.spec, i)] ?? 0));
+  const q0: QualityFlag[] = [];
   notes.push(...equivalentPartnerNotes(jHz, passiveHz, linewidthHz));
+  if (checked?.ambiguous) q0.push('ambiguous_multiplet');
   const q = qualityFlags({
     jHz, jSdHz, linewidthHz, hzPerPoint: hzPt, dimension,
     shiftDiffHz: (peak.f1Ppm - peak.f2Ppm) * s.f2.observeMhz,
@@ -155,7 +165,7 @@ export function measureCrossPeak(s: Spectrum2D, peak: CrossPeakInput, opts: Meas
     jHz, jSdHz, passiveHz, passiveSdHz, linewidthHz, linewidthSdHz, method, dimension, centreHz,
     centrePpm: hzToPpm(block.along, centreHz), noise: sigma,
     residualRms: Math.sqrt(rss / Math.max(1, fitted.length)), chi2Reduced: chi2,
-    flags: q.flags, notes, traces: traceFits(block, fitted), lineshape,
+    flags: [...q.flags, ...q0], notes, traces: traceFits(block, fitted), lineshape,
   };
 }
 export { measurePair, reconcile, type PairMeasurement, type PartnerResult } from './pair';

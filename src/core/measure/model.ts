@@ -16,6 +16,40 @@ import type { LineModel } from './lineshape';
 export interface ModelSpec {
   readonly line: LineModel;
   readonly passives: number;
+  /**
+   * Number of equivalent protons behind each passive coupling (1..3; absent: all 1). A group of n
+   * splits in-phase into n + 1 lines at (n/2 - k) Jp with binomial weights C(n, k) (first-order
+   * multiplet rule, e.g. a CH3 partner gives a 1:3:3:1 quartet).
+   */
+  readonly groups?: readonly number[];
+}
+
+/** Equivalent protons behind passive coupling i (1 when the spec has no groups). */
+export function groupSize(spec: ModelSpec, i: number): number {
+  return spec.groups?.[i] ?? 1;
+}
+
+/** In-phase lines of the passive couplings: offsets from the centre (Hz) and binomial weights. */
+function passiveLines(spec: ModelSpec, theta: ArrayLike<number>): { offsets: number[]; weights: number[] } {
+  let offsets = [0];
+  let weights = [1];
+  for (let i = 0; i < spec.passives; i++) {
+    const jp = boundedCoupling(theta[passiveIndex(spec, i)] ?? 0);
+    const n = groupSize(spec, i);
+    const no: number[] = [];
+    const nw: number[] = [];
+    let c = 1; // C(n, k), updated as k runs
+    for (let k = 0; k <= n; k++) {
+      offsets.forEach((o, q) => {
+        no.push(o + (n / 2 - k) * jp);
+        nw.push((weights[q] ?? 0) * c);
+      });
+      c = (c * (n - k)) / (k + 1);
+    }
+    offsets = no;
+    weights = nw;
+  }
+  return { offsets, weights };
 }
 
 export function hasMix(spec: ModelSpec): boolean {
@@ -28,6 +62,39 @@ export function passiveIndex(spec: ModelSpec, i: number): number {
 
 export function paramCount(spec: ModelSpec): number {
   return passiveIndex(spec, spec.passives);
+}
+
+/**
+ * Largest |J(H,H)| a coupling may take, Hz: handbook ranges (geminal -10 to -15, vicinal up to ~13,
+ * trans-olefinic up to 18; /work/shared/checks/references.md) with a margin.
+ */
+export const J_MAX_HZ = 20;
+/** Below this |value| the internal parameter is the coupling itself (the bound changes nothing there). */
+const J_SOFT_HZ = 16;
+
+/**
+ * A coupling from its internal (unbounded) parameter u: u itself while |u| <= 16 Hz, then
+ * 16 + 4 tanh((|u| - 16) / 4) with u's sign, so |J| < 20 Hz and J is smooth (value and slope
+ * continuous) in u. The fit then stays inside the physical range without a constrained optimiser.
+ */
+export function boundedCoupling(u: number): number {
+  const a = Math.abs(u);
+  if (a <= J_SOFT_HZ) return u;
+  const span = J_MAX_HZ - J_SOFT_HZ;
+  return Math.sign(u) * (J_SOFT_HZ + span * Math.tanh((a - J_SOFT_HZ) / span));
+}
+
+/** dJ/du of boundedCoupling, for the standard deviation of J from that of u (delta method). */
+export function boundedSlope(u: number): number {
+  const a = Math.abs(u);
+  if (a <= J_SOFT_HZ) return 1;
+  const t = Math.tanh((a - J_SOFT_HZ) / (J_MAX_HZ - J_SOFT_HZ));
+  return 1 - t * t;
+}
+
+/** True when the fit pushes the coupling into the top of the range (it wants more than the bound allows). */
+export function atBound(u: number): boolean {
+  return Math.abs(u) > J_MAX_HZ;
 }
 
 /** The width parameter of the line model (natural width, or FWHM for pseudo-Voigt). */
@@ -59,21 +126,19 @@ export function makeTheta(spec: ModelSpec, centre: number, j: number, width: num
 /** The pattern at the given frequencies (Hz, a uniform axis), written into out. */
 export function pattern(spec: ModelSpec, theta: ArrayLike<number>, freqs: Float64Array, out: Float64Array): void {
   const centre = theta[0] ?? 0;
-  const j = theta[1] ?? 0;
+  const j = boundedCoupling(theta[1] ?? 0);
   const width = lineWidth(spec, theta);
   const mix = mixFraction(spec, theta);
   const cp = Math.cos(theta[3] ?? 0);
   const sp = Math.sin(theta[3] ?? 0);
   const offsets: number[] = [];
   const weights: number[] = [];
-  const nComb = 1 << spec.passives;
+  const pl = passiveLines(spec, theta);
   for (const s0 of [1, -1]) {
-    for (let c = 0; c < nComb; c++) {
-      let nu = centre + (s0 * j) / 2;
-      for (let i = 0; i < spec.passives; i++) nu += (((c >> i) & 1) ? -0.5 : 0.5) * (theta[passiveIndex(spec, i)] ?? 0);
-      offsets.push(nu);
-      weights.push(s0);
-    }
+    pl.offsets.forEach((o, q) => {
+      offsets.push(centre + (s0 * j) / 2 + o);
+      weights.push(s0 * (pl.weights[q] ?? 0));
+    });
   }
   const m = freqs.length;
   const step = m > 1 ? (freqs[1] ?? 0) - (freqs[0] ?? 0) : 0;

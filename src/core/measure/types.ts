@@ -7,7 +7,9 @@ export type QualityFlag =
   /** The symmetric cross peak reads n = 2 or 3 times this J: that trace is split by a CH2/CH3 partner. */
   | 'equivalent_partner'
   /** The symmetric cross peak gives a J that neither agrees nor is a small multiple. */
-  | 'partner_disagrees';
+  | 'partner_disagrees'
+  /** A smaller active J with an equivalent-proton group or extra passive coupling fits as well as the larger reading. */
+  | 'ambiguous_multiplet';
 
 /** One trace used in a measurement: the data, the fitted model and their difference, over fromPpm..toPpm. */
 export interface TraceFit {
@@ -50,7 +52,7 @@ export interface MeasureOptions {
   dimension?: 'F2' | 'F1';
   /** Noise standard deviation of the processed spectrum; measured with estimateNoise when absent. */
   noise?: number;
-  /** Largest number of passive couplings the model may use (default 2). */
+  /** Largest number of passive couplings (each to 1-3 equivalent protons) the model may use (default 4). */
   maxPassive?: number;
   /** Largest number of traces fitted jointly (default 8, the strongest in the extent). */
   rows?: number;
