@@ -211,8 +211,10 @@ function observed(g: DerivedSignal, recorded: SiCoupling[], notes: string[]): Si
     notes.push(`${label}: the 1D splittings (J = ${js} Hz) and the recorded J (${resolved.map((c) => Math.abs(c.jHz).toFixed(1)).join(', ')} Hz) ` +
       'differ by more than 3 combined sd; the SI line gives the 1D values. Check the COSY measurement.');
   } else {
+    const unresolved = recorded.filter((c) => (c.flags ?? []).includes('unresolved')).flatMap((c) => c.partners ?? []);
+    const why = unresolved.length > 0 ? ` (J to ${unresolved.join(', ')} flagged unresolved in the COSY)` : '';
     notes.push(`${label}: the 1D multiplet is ${a.multiplicity}${js ? ` (J = ${js} Hz)` : ''}, the recorded couplings give ` +
-      `${lettersOf(recorded)}; the SI line follows the 1D spectrum (measure the missing couplings to attribute them).`);
+      `${lettersOf(recorded)}${why}; the SI line follows the 1D spectrum.`);
   }
   return a.couplings.map((c) => ({ jHz: c.jHz, sdHz: c.sdHz, count: c.count, partners: [], flags: [] }));
 }
