@@ -9,7 +9,7 @@ import { Option, type Command } from 'commander';
 import { SOLVENT_MISSING } from '../core/report/compound';
 import { checkCompound, type CheckOptions, type CompoundInput, type NoteInput, type Problem } from '../core/review/check';
 import { parseSidecar } from '../core/sidecar';
-import { labelsInMarkdown } from '../extension/labels';
+import { labelsInMarkdown } from '../core/notes/labels';
 import { findCompounds, SIDECAR } from './compounds';
 import { EXIT_MEASURE_FAILED, EXIT_OK, InputError } from './errors';
 import type { CliIo } from './io';

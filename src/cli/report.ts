@@ -13,8 +13,8 @@ import { compoundReport, compoundReportJson, type CompoundReport } from '../core
 import { nmredataRecord } from '../core/report/nmredata';
 import { parseSidecar } from '../core/sidecar';
 import type { Spectrum, Spectrum1D } from '../core/spectrum/spectrum';
-import { labelsInMarkdown } from '../extension/labels';
-import { readFrontMatter } from '../extension/notes/frontMatter';
+import { labelsInMarkdown } from '../core/notes/labels';
+import { readFrontMatter } from '../core/notes/frontMatter';
 import { findCompounds } from './compounds';
 import { EXIT_OK, InputError } from './errors';
 import { SPECTRUM_EXTENSIONS, loadSpectrum, type CliIo } from './io';

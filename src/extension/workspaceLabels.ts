@@ -1,6 +1,6 @@
 // Atom labels used in the workspace: structure notes (markdown) and sidecars, for label completion.
 import * as vscode from 'vscode';
-import { labelsInMarkdown, labelsInSidecar, mergeLabels } from './labels';
+import { labelsInMarkdown, labelsInSidecar, mergeLabels } from '../core/notes/labels';
 
 const EXCLUDE = '**/{node_modules,.git,dist}/**';
 /** Enough for a project's notes; a huge workspace should not stall opening a panel. */

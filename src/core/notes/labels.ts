@@ -2,7 +2,7 @@
  * Atom labels known in the workspace, for completion when the chemist labels a pick. Pure text
  * scanning; the caller finds and reads the files (markdown structure notes and other sidecars).
  */
-import { naturalCompare, parseSidecar } from '../core/sidecar';
+import { naturalCompare, parseSidecar } from '../sidecar';
 
 /**
  * Proton labels as the structure notes write them: `H-3`, `H-4a`, `H-2'`, `H-10b`. The label must

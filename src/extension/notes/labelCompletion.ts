@@ -2,7 +2,7 @@
  * Completion of atom labels in a structure note: the labels the compound's sidecars assign and the
  * ones the notes already use, offered where a label is being typed (`H`, `H-`, `H-1`...). Pure.
  */
-import { mergeLabels } from '../labels';
+import { mergeLabels } from '../../core/notes/labels';
 import { shiftOf, type LabelIndex } from './labelIndex';
 import { toFixedDecimal } from '../../core/sidecar';
 

@@ -2,8 +2,8 @@
  * Problems of a structure note: atom labels that no spectrum assigns, unreadable sidecars and
  * front matter. Pure: offsets into the note's text; the glue turns them into VS Code ranges.
  */
-import { labelMatches } from '../labels';
-import type { FrontMatter } from './frontMatter';
+import { labelMatches } from '../../core/notes/labels';
+import type { FrontMatter } from '../../core/notes/frontMatter';
 import type { LabelIndex } from './labelIndex';
 
 export interface NoteProblem {

@@ -4,8 +4,8 @@
  * otherwise. Thin: everything it reads goes to the pure modules beside it.
  */
 import * as vscode from 'vscode';
-import { labelsInMarkdown } from '../labels';
-import { readFrontMatter } from './frontMatter';
+import { labelsInMarkdown } from '../../core/notes/labels';
+import { readFrontMatter } from '../../core/notes/frontMatter';
 import { buildLabelIndex, type LabelIndex, type SidecarText } from './labelIndex';
 
 const SIDECAR = /\.couplet\.yaml$/;

@@ -5,9 +5,9 @@
  * sidecar changes (an accept in the panel, an undo, a checkout).
  */
 import * as vscode from 'vscode';
-import { labelMatches } from '../labels';
+import { labelMatches } from '../../core/notes/labels';
 import { readSettings } from '../settings';
-import { readFrontMatter } from './frontMatter';
+import { readFrontMatter } from '../../core/notes/frontMatter';
 import { hoverText } from './hoverText';
 import { labelCompletions, labelPrefixStart } from './labelCompletion';
 import { noteProblems, type PairProblem } from './noteDiagnostics';

@@ -5,7 +5,7 @@
  */
 import { checkCompound, type NoteInput, type Problem, type SidecarInput } from '../../core/review/check';
 import { parseSidecar } from '../../core/sidecar';
-import { labelsInMarkdown } from '../labels';
+import { labelsInMarkdown } from '../../core/notes/labels';
 
 export interface FolderReader {
   /** File names (not paths) in the folder. */

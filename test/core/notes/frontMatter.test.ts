@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { readFrontMatter } from '../../../src/extension/notes/frontMatter';
+import { readFrontMatter } from '../../../src/core/notes/frontMatter';
 
 describe('readFrontMatter', () => {
   it('reads the compound id of a sample note (samples/brisquarene/brisquarene.md starts with `compound: brisquarene`)', () => {

@@ -1,11 +1,11 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { labelsInMarkdown, labelsInSidecar, mergeLabels } from '../../src/extension/labels';
+import { labelsInMarkdown, labelsInSidecar, mergeLabels } from '../../../src/core/notes/labels';
 
 describe('labelsInMarkdown', () => {
   it('finds the proton labels of a structure note (samples/quellopyranol, its label table)', () => {
-    const note = readFileSync(join(__dirname, '..', '..', 'samples', 'quellopyranol', 'quellopyranol.md'), 'utf8');
+    const note = readFileSync(join(__dirname, '..', '..', '..', 'samples', 'quellopyranol', 'quellopyranol.md'), 'utf8');
     // The note's table lists these ten labels; the prose also names carbons (C-2, C-4, C-6), which are not protons.
     expect(mergeLabels(labelsInMarkdown(note))).toEqual(['H-2', 'H-3a', 'H-3b', 'H-4', 'H-5a', 'H-5b', 'H-6', 'H-7', 'H-8a', 'H-8b']);
   });

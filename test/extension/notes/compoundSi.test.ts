@@ -10,11 +10,11 @@ import { existsSync, mkdirSync, readdirSync, readFileSync, writeFileSync } from 
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { parseJcamp } from '../../../src/core/jcamp';
-import { labelsInMarkdown } from '../../../src/extension/labels';
+import { labelsInMarkdown } from '../../../src/core/notes/labels';
 import { buildReports } from '../../../src/cli/report';
 import type { CompoundReport } from '../../../src/core/report/compound';
 import { compoundSi, multiplicities, readSources, siText } from '../../../src/extension/notes/compoundSi';
-import { readFrontMatter } from '../../../src/extension/notes/frontMatter';
+import { readFrontMatter } from '../../../src/core/notes/frontMatter';
 import { upsertRegion } from '../../../src/extension/notes/siRegion';
 
 const SAMPLES = join(__dirname, '..', '..', '..', 'samples');

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { formatSidecar, newSidecar, type Sidecar } from '../../../src/core/sidecar';
-import { readFrontMatter } from '../../../src/extension/notes/frontMatter';
+import { readFrontMatter } from '../../../src/core/notes/frontMatter';
 import { hoverText } from '../../../src/extension/notes/hoverText';
 import { labelCompletions, labelPrefixStart } from '../../../src/extension/notes/labelCompletion';
 import { buildLabelIndex, shiftOf } from '../../../src/extension/notes/labelIndex';
