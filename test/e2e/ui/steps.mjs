@@ -116,6 +116,31 @@ export const steps = [
     },
   },
   {
+    name: 'ctrl-z-in-panel-undoes-pick',
+    run: async (ctx) => {
+      // With the webview focused, Ctrl+Z reaches the workbench (the webview forwards undo/redo keys), whose
+      // undo goes to the focused custom editor's edit stack: the accepted pick must leave the sidecar.
+      const side = join(ctx.ws.folder, 'brisquarene', 'cosy.jdx.couplet.yaml');
+      const hasPick = () => existsSync(side) && /atoms: \[H-5, H-6\]/.test(readFileSync(side, 'utf8'));
+      const saved = async (want, what) => {
+        await ctx.page.keyboard.press('Control+s');
+        const deadline = Date.now() + 15_000;
+        while (hasPick() !== want) {
+          if (Date.now() > deadline) throw new Error(`${what}: ${side} ${want ? 'lacks' : 'still has'} the coupling H-5/H-6`);
+          await sleep(200);
+        }
+      };
+      await ctx.frame.locator('canvas#plot').focus();
+      await ctx.page.keyboard.press('Control+z');
+      await saved(false, 'after Ctrl+Z and save');
+      await ctx.frame.locator('canvas#plot').focus();
+      await ctx.page.keyboard.press('Control+Shift+z');
+      await saved(true, 'after Ctrl+Shift+Z and save');
+      await ctx.frame.locator('canvas#plot').hover();
+      return 'undo removed the pick, redo brought it back (saved both times)';
+    },
+  },
+  {
     name: 'wheel-zoom-axes',
     run: async (ctx) => {
       const box = ctx.map.box;
