@@ -105,11 +105,14 @@ function couplingGrid(ctx: FitContext, w: number): number[] {
  * splittings or lock onto an outer pair of lines.
  */
 function gridStarts(ctx: FitContext, specs: ModelSpec[], base: Float64Array, w: number, widths: number[], keep = 2): Start[] {
-  const grid = couplingGrid(ctx, w);
+  const fine = couplingGrid(ctx, w);
+  // A new group of 2 or 3 protons at the first width only: its pattern has more lines, and the local fit refines the width.
   const scored: { rss: number; spec: ModelSpec; th: Float64Array }[] = [];
   for (const spec of specs) {
     const jp = spec.passives > 0 ? passiveIndex(spec, spec.passives - 1) : -1;
-    for (const width of widths) {
+    const single = jp < 0 || groupSize(spec, spec.passives - 1) === 1;
+    const grid = fine;
+    for (const width of single ? widths : widths.slice(0, 1)) {
       for (const j of grid) {
         for (const p of jp >= 0 ? grid : [0]) {
           const th = Float64Array.from(base);
