@@ -81,7 +81,8 @@ function chi2Band(ctx: FitContext): number {
 }
 
 function fitFamily(ctx: FitContext, family: Family, maxPassive: number, centre: number, jApp: number): FamilyFit {
-  const sel = selectModel(ctx, family.line, maxPassive, centre, jApp);
+  // Single-proton passives only: with an assumed line shape, a group's extra lines would absorb the shape mismatch.
+  const sel = selectModel(ctx, family.line, maxPassive, centre, jApp, 1);
   const unc = uncertainty(ctx, sel.fit);
   return { family, sel, unc, jHz: Math.abs(boundedCoupling(sel.fit.theta[1] ?? 0)),
     jSdHz: Math.sqrt(Math.max(0, unc.cov.get(1, 1))) * boundedSlope(sel.fit.theta[1] ?? 0) };

@@ -138,10 +138,10 @@ export const MAX_GROUP = 3;
 export const MAX_PASSIVE_PROTONS = 5;
 
 /** The models with one more passive coupling than prev: the new one to 1, 2 or 3 equivalent protons. */
-function nextSpecs(prev: ModelSpec): ModelSpec[] {
+function nextSpecs(prev: ModelSpec, maxGroup: number): ModelSpec[] {
   const groups = Array.from({ length: prev.passives }, (_, i) => groupSize(prev, i));
   const used = groups.reduce((a, b) => a + b, 0);
-  return Array.from({ length: Math.min(MAX_GROUP, MAX_PASSIVE_PROTONS - used) }, (_, n) => ({ line: prev.line, passives: prev.passives + 1, groups: [...groups, n + 1] }));
+  return Array.from({ length: Math.min(maxGroup, MAX_PASSIVE_PROTONS - used) }, (_, n) => ({ line: prev.line, passives: prev.passives + 1, groups: [...groups, n + 1] }));
 }
 
 /** Width parameters to try before any fit: natural widths (processed line) or log FWHM (pseudo-Voigt). */
@@ -209,16 +209,16 @@ export interface Selection {
  * projection of the noise on the change d of the fitted values, so under the smaller model
  * ΔRSS / (σ² dᵀRd / dᵀd) follows χ²(1) even with correlated noise R (likelihood-ratio test).
  */
-export function selectModel(ctx: FitContext, line: LineModel, maxPassive: number, centre: number, jApp: number): Selection {
+export function selectModel(ctx: FitContext, line: LineModel, maxPassive: number, centre: number, jApp: number, maxGroup = MAX_GROUP): Selection {
   const first: ModelSpec = { line, passives: 0 };
   const w0 = Math.max(jApp, 1e-3);
   const chain = [bestOf(ctx, gridStarts(ctx, [first], makeTheta(first, centre, jApp, 1, []), w0, firstWidths(first, jApp)))];
   for (let k = 1; k <= maxPassive; k++) {
     const prev = chain[k - 1] as FitResult;
     // Beyond two couplings only while the previous one was significant: saves fit time on simple multiplets.
-    if (nextSpecs(prev.spec).length === 0) break;
+    if (nextSpecs(prev.spec, maxGroup).length === 0) break;
     if (k > 2 && !(lrStat(ctx, chain[k - 2] as FitResult, prev, 1) > (CHI2_P001[0] ?? Infinity))) break;
-    const specs = nextSpecs(prev.spec);
+    const specs = nextSpecs(prev.spec, maxGroup);
     const next = specs[0] as ModelSpec;
     const w = apparentFwhm(prev.spec, prev.theta);
     const base = startWithPassive(prev, next, prev.theta[1] ?? 0, 0);

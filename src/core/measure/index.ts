@@ -17,6 +17,8 @@ export type { QualityFlag, TraceFit, Measurement, MeasureOptions, CrossPeakInput
 
 /** Passive couplings tried by default: a CH next to a CH3 and a CH2 and one more proton has four. */
 const DEFAULT_MAX_PASSIVE = 4;
+/** With an assumed line shape, more couplings absorb the shape mismatch instead: the former default there. */
+const ASSUMED_MAX_PASSIVE = 2;
 
 function checkOptions(o: MeasureOptions): void {
   if (o.maxPassive !== undefined && !(Number.isInteger(o.maxPassive) && o.maxPassive >= 0 && o.maxPassive <= 4)) {
@@ -113,7 +115,7 @@ export function measureCrossPeak(s: Spectrum2D, peak: CrossPeakInput, opts: Meas
   }
   // Unknown processing: several line shapes, J averaged over those the data do not reject (assumedShape.ts).
   const averaged = method === 'fit' && !block.alongProcessing
-    ? fitAssumedShape(ctx, block.along, opts.maxPassive ?? DEFAULT_MAX_PASSIVE, start.centreHz, start.jHz)
+    ? fitAssumedShape(ctx, block.along, opts.maxPassive ?? ASSUMED_MAX_PASSIVE, start.centreHz, start.jHz)
     : undefined;
   const maxPassive = method === 'fit' ? opts.maxPassive ?? DEFAULT_MAX_PASSIVE : 0;
   const chosen = averaged ? undefined : selectModel(ctx, line, maxPassive, start.centreHz, start.jHz);
