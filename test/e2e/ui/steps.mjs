@@ -162,6 +162,52 @@ export const steps = [
       return `probe F2 ${before.f2} -> ${after.f2} ppm`;
     },
   },
+  {
+    name: 'note-label-completion',
+    run: async ({ page }) => {
+      // Last step: it types into the structure note and reverts, so nothing it does reaches the earlier steps.
+      // The note's completion (src/extension/notes) offers the compound's atom labels after `H-`; H-5 and H-6
+      // are assigned in the sample's sidecars and used in brisquarene.md.
+      const row = (text) => page.locator('.explorer-folders-view .monaco-list-row', { hasText: text }).first();
+      await row('brisquarene.md').waitFor({ timeout: 30_000 });
+      await row('brisquarene.md').dblclick();
+      await page.locator('.tab.active', { hasText: 'brisquarene.md' }).waitFor({ timeout: 30_000 });
+      const editor = page.locator('.editor-group-container.active .monaco-editor .view-lines').first();
+      await editor.waitFor({ timeout: 30_000 });
+      await editor.click();
+      await page.keyboard.press('Control+End');
+      await page.keyboard.press('Enter');
+      await page.keyboard.type('H-', { delay: 50 });
+      const rows = page.locator('.suggest-widget .monaco-list-row');
+      const opened = await rows.first().waitFor({ timeout: 5_000 }).then(() => true, () => false);
+      if (!opened) await page.keyboard.press('Control+Space');
+      await rows.first().waitFor({ timeout: 15_000 }).catch(() => {
+        throw new Error('no suggestion widget after typing "H-" and Ctrl+Space in brisquarene.md');
+      });
+      const want = ['H-5', 'H-6'];
+      let labels = [];
+      const deadline = Date.now() + 10_000;
+      for (;;) {
+        labels = (await page.locator('.suggest-widget .monaco-list-row .label-name').allTextContents()).map((t) => t.trim());
+        if (want.every((w) => labels.includes(w))) break;
+        if (Date.now() > deadline) throw new Error(`suggestions lack ${want.filter((w) => !labels.includes(w)).join(', ')}: [${labels.join(', ')}]`);
+        await sleep(300);
+      }
+      await page.keyboard.press('Escape');
+      await rows.first().waitFor({ state: 'hidden', timeout: 5_000 }).catch(() => undefined);
+      // Close without saving: the workbench's own revert-and-close command, so no save dialog comes up.
+      await page.keyboard.press('F1');
+      const input = page.locator('.quick-input-widget input');
+      await input.waitFor({ timeout: 10_000 });
+      await input.fill('>Revert and Close Editor');
+      await page.locator('.quick-input-list .monaco-list-row', { hasText: 'Revert and Close Editor' }).first().waitFor({ timeout: 10_000 });
+      await page.keyboard.press('Enter');
+      await page.locator('.tab', { hasText: 'brisquarene.md' }).waitFor({ state: 'detached', timeout: 10_000 }).catch(() => {
+        throw new Error('brisquarene.md is still open after "Revert and Close Editor"');
+      });
+      return `suggested: ${labels.join(', ')}`;
+    },
+  },
 ];
 
 /**
