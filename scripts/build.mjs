@@ -1,6 +1,7 @@
 // Bundles every entry point with esbuild. Type checking is `npm run typecheck` (tsc --noEmit).
 import { build } from 'esbuild';
 import { existsSync } from 'node:fs';
+import { nodeBundle } from './bundleOptions.mjs';
 
 const entries = [
   { in: 'src/cli.ts', out: 'cli' },
@@ -12,12 +13,7 @@ const entries = [
 await build({
   entryPoints: entries,
   outdir: 'dist',
-  bundle: true,
-  platform: 'node',
-  format: 'cjs',
-  target: 'node20',
-  sourcemap: true,
-  logLevel: 'warning',
+  ...nodeBundle,
   banner: { js: '#!/usr/bin/env node' },
   // A native module (prebuilt binary from its optional dependencies): required at run time, not bundled.
   external: ['@resvg/resvg-js'],
@@ -33,12 +29,7 @@ if (hostEntries.length > 0) {
   await build({
     entryPoints: hostEntries,
     outdir: 'dist',
-    bundle: true,
-    platform: 'node',
-    format: 'cjs',
-    target: 'node20',
-    sourcemap: true,
-    logLevel: 'warning',
+    ...nodeBundle,
     external: ['vscode'],
   });
 }

@@ -2,6 +2,7 @@
 // host, like the extension itself. Kept out of scripts/build.mjs so the extension build never depends on it.
 import { build } from 'esbuild';
 import { join } from 'node:path';
+import { nodeBundle } from '../bundleOptions.mjs';
 import { repoRoot } from './paths.mjs';
 
 export const inHostBundle = join(repoRoot, 'dist', 'test', 'inHost.js');
@@ -10,12 +11,7 @@ export async function buildInHostTests() {
   await build({
     entryPoints: [join(repoRoot, 'test', 'e2e', 'inHost', 'index.ts')],
     outfile: inHostBundle,
-    bundle: true,
-    platform: 'node',
-    format: 'cjs',
-    target: 'node20',
-    sourcemap: true,
-    logLevel: 'warning',
+    ...nodeBundle,
     external: ['vscode'],
   });
   return inHostBundle;
