@@ -6,23 +6,9 @@ import { simulateDqfCosy, type CosyPeakTruth } from '../../../src/core/simulate/
 import type { SpinSystem } from '../../../src/core/simulate/spinSystem';
 import { resolutionHz } from '../../../src/core/spectrum/axis';
 import type { DimensionProcessing } from '../../../src/core/spectrum/processing';
+import { fourSpinSystem } from './fourSpin';
 
-// Invented four-spin system (a CH-CH-CH2 fragment with a geminal pair), first order at 600 MHz.
-const system: SpinSystem = {
-  observeMhz: 600,
-  spins: [
-    { label: 'H-1', ppm: 4.2, linewidthHz: 1.2 },
-    { label: 'H-2', ppm: 3.85, linewidthHz: 1.2 },
-    { label: 'H-3a', ppm: 2.6, linewidthHz: 1.2 },
-    { label: 'H-3b', ppm: 2.45, linewidthHz: 1.2 },
-  ],
-  couplings: [
-    { a: 'H-1', b: 'H-2', jHz: 7.5 },
-    { a: 'H-2', b: 'H-3a', jHz: 5 },
-    { a: 'H-2', b: 'H-3b', jHz: 8.5 },
-    { a: 'H-3a', b: 'H-3b', jHz: -16 },
-  ],
-};
+const system: SpinSystem = fourSpinSystem(1.2);
 // Squared cosine bell in both dimensions (common practice for DQF-COSY); F2 1.46 Hz/point,
 // F1 5.9 Hz/point after zero-filling: a typical digital resolution (references.md).
 const bell = { kind: 'sine', power: 2, shiftDeg: 90 } as const;

@@ -3,24 +3,11 @@ import { pickMultiplets1D } from '../../../src/core/peaks/multiplets1D';
 import { simulate1D } from '../../../src/core/simulate/simulate1D';
 import { spinMultiplet, type SpinSystem } from '../../../src/core/simulate/spinSystem';
 import type { DimensionProcessing } from '../../../src/core/spectrum/processing';
+import { fourSpinSystem } from './fourSpin';
 
-// Invented four-spin system (as in simulated.test.ts) with narrow lines, so that every line of
-// the ddd of H-2 (two of them 1 Hz apart) is resolved.
-const system: SpinSystem = {
-  observeMhz: 600,
-  spins: [
-    { label: 'H-1', ppm: 4.2, linewidthHz: 0.5 },
-    { label: 'H-2', ppm: 3.85, linewidthHz: 0.5 },
-    { label: 'H-3a', ppm: 2.6, linewidthHz: 0.5 },
-    { label: 'H-3b', ppm: 2.45, linewidthHz: 0.5 },
-  ],
-  couplings: [
-    { a: 'H-1', b: 'H-2', jHz: 7.5 },
-    { a: 'H-2', b: 'H-3a', jHz: 5 },
-    { a: 'H-2', b: 'H-3b', jHz: 8.5 },
-    { a: 'H-3a', b: 'H-3b', jHz: -16 },
-  ],
-};
+// The four-spin system with narrow lines, so that every line of the ddd of H-2 (two of them 1 Hz
+// apart) is resolved.
+const system: SpinSystem = fourSpinSystem(0.5);
 // 5.5 s acquisition, 0.18 Hz/point after zero-filling (common practice for 1H 1D spectra).
 const p: DimensionProcessing = { acquiredPoints: 32768, spectralWidthHz: 6000, carrierHz: 1980, window: { kind: 'none' }, size: 32768 };
 
