@@ -295,14 +295,21 @@ const FROM_WEBVIEW: Record<FromWebview['type'], (m: Obj) => string | null> = {
   cancel: () => null,
 };
 
-/** Validates a message from the webview; the error names the type and the field at fault. */
-export function parseFromWebview(raw: unknown): Parsed<FromWebview> {
+/**
+ * Checks a raw message against a table of per-type field checks; the error names the type and the
+ * field at fault. Own keys only: a type such as "valueOf" must not reach Object.prototype's functions.
+ */
+function parseWith<T>(table: Readonly<Record<string, (m: Obj) => string | null>>, raw: unknown): Parsed<T> {
   if (!isObj(raw) || !isStr(raw.type)) return { ok: false, error: 'message is not an object with a string "type"' };
-  // Own keys only: a type such as "valueOf" must not reach Object.prototype's functions.
-  const check = Object.hasOwn(FROM_WEBVIEW, raw.type) ? (FROM_WEBVIEW as Record<string, (m: Obj) => string | null>)[raw.type] : undefined;
+  const check = Object.hasOwn(table, raw.type) ? table[raw.type] : undefined;
   if (!check) return { ok: false, error: `unknown message type "${raw.type}"` };
   const bad = check(raw);
-  return bad ? { ok: false, error: `message "${raw.type}": field "${bad}" is missing or invalid` } : { ok: true, value: raw as unknown as FromWebview };
+  return bad ? { ok: false, error: `message "${raw.type}": field "${bad}" is missing or invalid` } : { ok: true, value: raw as unknown as T };
+}
+
+/** Validates a message from the webview. */
+export function parseFromWebview(raw: unknown): Parsed<FromWebview> {
+  return parseWith<FromWebview>(FROM_WEBVIEW, raw);
 }
 
 const TO_WEBVIEW: Record<ToWebview['type'], (m: Obj) => string | null> = {
@@ -319,9 +326,5 @@ const TO_WEBVIEW: Record<ToWebview['type'], (m: Obj) => string | null> = {
 
 /** Validates a message from the host (the webview checks what it receives too). */
 export function parseToWebview(raw: unknown): Parsed<ToWebview> {
-  if (!isObj(raw) || !isStr(raw.type)) return { ok: false, error: 'message is not an object with a string "type"' };
-  const check = Object.hasOwn(TO_WEBVIEW, raw.type) ? (TO_WEBVIEW as Record<string, (m: Obj) => string | null>)[raw.type] : undefined;
-  if (!check) return { ok: false, error: `unknown message type "${raw.type}"` };
-  const bad = check(raw);
-  return bad ? { ok: false, error: `message "${raw.type}": field "${bad}" is missing or invalid` } : { ok: true, value: raw as unknown as ToWebview };
+  return parseWith<ToWebview>(TO_WEBVIEW, raw);
 }
