@@ -72,6 +72,39 @@ export function relabelPick(text: string, id: string, label: readonly string[], 
   return edit(text, fileName, (s) => replacePick(s, id, fileName, (p) => ({ ...p, label: [...label] })));
 }
 
+/** Sets (or, with null, clears) a 1D multiplet's region; ends in any order, stored high to low ppm. */
+export function setPickRegion(text: string, id: string, region: { fromPpm: number; toPpm: number } | null, fileName = 'sidecar'): TextEdit[] {
+  return edit(text, fileName, (s) => replacePick(s, id, fileName, (p) => {
+    const { fromPpm: _f, toPpm: _t, ...rest } = p;
+    if (region === null) return rest;
+    if (p.f1Ppm !== undefined) throw new Error(`${fileName}: pick "${id}" is a 2D peak; a region belongs to a 1D multiplet`);
+    const hi = Math.max(region.fromPpm, region.toPpm);
+    const lo = Math.min(region.fromPpm, region.toPpm);
+    if (!Number.isFinite(hi) || !Number.isFinite(lo) || hi === lo) throw new Error(`${fileName}: region ${region.fromPpm}..${region.toPpm} ppm must be two different shifts`);
+    return { ...rest, fromPpm: hi, toPpm: lo };
+  }));
+}
+
+/** Makes the pick the integral reference holding `protons` protons (clearing any other), or clears it with null. */
+export function setIntegralReference(text: string, id: string, protons: number | null, fileName = 'sidecar'): TextEdit[] {
+  if (protons !== null && !(Number.isInteger(protons) && protons >= 1 && protons <= 99)) {
+    throw new Error(`${fileName}: the reference must hold a whole number of protons from 1 to 99, got ${protons}`);
+  }
+  return edit(text, fileName, (s) => {
+    pickIndex(s, id, fileName);
+    return {
+      ...s,
+      picks: s.picks.map((p) => {
+        const { protons: _old, ...rest } = p;
+        if (p.id !== id) return p.protons === undefined || protons === null ? p : rest;
+        if (protons === null) return rest;
+        if (p.f1Ppm !== undefined) throw new Error(`${fileName}: pick "${id}" is a 2D peak; the integral reference is a 1D multiplet`);
+        return { ...rest, protons };
+      }),
+    };
+  });
+}
+
 /** Removes the pick and its id from the couplings that cite it (their values stay). */
 export function removePick(text: string, id: string, fileName = 'sidecar'): TextEdit[] {
   return edit(text, fileName, (s) => {

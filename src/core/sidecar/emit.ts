@@ -62,8 +62,11 @@ export function pickFields(p: Pick): FieldLine[] {
     { key: 'f2_ppm', text: `f2_ppm: ${ppm(p.f2Ppm)}` },
   ];
   if (p.f1Ppm !== undefined) out.push({ key: 'f1_ppm', text: `f1_ppm: ${ppm(p.f1Ppm)}` });
+  if (p.fromPpm !== undefined) out.push({ key: 'from_ppm', text: `from_ppm: ${ppm(p.fromPpm)}` });
+  if (p.toPpm !== undefined) out.push({ key: 'to_ppm', text: `to_ppm: ${ppm(p.toPpm)}` });
   out.push({ key: 'label', text: `label: ${label}` });
   if (p.kind !== undefined) out.push({ key: 'kind', text: `kind: ${p.kind}` });
+  if (p.protons !== undefined) out.push({ key: 'protons', text: `protons: ${p.protons}` });
   if (p.note !== undefined) out.push({ key: 'note', text: `note: ${scalar(p.note, false)}` });
   return out;
 }

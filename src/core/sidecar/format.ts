@@ -35,7 +35,7 @@ export function normalizeSidecar(s: Sidecar): Sidecar {
 
 /** Throws when the sidecar cannot be written as valid schema v1 text, naming the item and field. */
 function checkWritable(s: Sidecar): string {
-  s.picks.forEach((p) => finite(`pick ${p.id}`, { f2_ppm: p.f2Ppm, f1_ppm: p.f1Ppm }));
+  s.picks.forEach((p) => finite(`pick ${p.id}`, { f2_ppm: p.f2Ppm, f1_ppm: p.f1Ppm, from_ppm: p.fromPpm, to_ppm: p.toPpm, protons: p.protons }));
   s.couplings.forEach((c) => finite(`coupling ${c.atoms.join('/')} ${c.method} ${c.dimension}`,
     { j_hz: c.jHz, j_sd_hz: c.jSdHz, linewidth_hz: c.linewidthHz, ...Object.fromEntries((c.passiveHz ?? []).map((v, i) => [`passive_hz[${i}]`, v])) }));
   const text = canonicalText(s);

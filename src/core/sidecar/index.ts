@@ -6,7 +6,8 @@ export { parseSidecar, isWritable, type ParseOptions, type ParseResult } from '.
 export { formatSidecar, normalizeSidecar } from './format';
 export { applyEdits, lineDiffEdits } from './lineDiff';
 export {
-  addPick, movePick, relabelPick, removePick, setCoupling, removeCoupling, setDataHash, pickIdFor,
+  addPick, movePick, relabelPick, removePick, setCoupling, removeCoupling, setDataHash, pickIdFor, setPickRegion,
+  setIntegralReference,
   type NewPick,
 } from './edits';
 export { toFixedDecimal, naturalCompare } from './decimal';

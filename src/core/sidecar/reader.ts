@@ -79,6 +79,11 @@ export class MapReader {
     this.sink.node(node, this.start(), 'error', code, this.field(key), problem);
   }
 
+  /** A problem that does not stop the item from being read or written. */
+  warn(node: Node | undefined, code: DiagnosticCode, key: string, problem: string): void {
+    this.sink.node(node, this.start(), 'warning', code, this.field(key), problem);
+  }
+
   string(key: string, required: boolean): string | undefined {
     const n = this.node(key, required);
     if (n === undefined) return undefined;

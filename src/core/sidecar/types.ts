@@ -15,6 +15,10 @@
  *       label: [H-3, H-4a]        # one atom label, a pair for a cross peak, [] while unassigned
  *       kind: cross               # optional: cross | diagonal | multiplet
  *       note: checked in 1D       # optional
+ *     - id: p-3.8200              # a 1D multiplet may also carry:
+ *       from_ppm: 3.8500          #   the region the chemist set (high to low ppm, 4 decimals)
+ *       to_ppm: 3.7900
+ *       protons: 1                #   the integral reference: this multiplet holds 1 proton
  *
  *   couplings:                    # sorted by atom pair, then method, then dimension
  *     - atoms: [H-3, H-4a]        # written in natural order
@@ -59,6 +63,11 @@ export interface Pick {
   /** Atom labels: one (diagonal, 1D multiplet), two (cross peak), none while unassigned. */
   label: string[];
   kind?: PickKind;
+  /** 1D multiplet region set by the chemist, high to low ppm (both or neither; never with f1Ppm). */
+  fromPpm?: number;
+  toPpm?: number;
+  /** 1D only: this multiplet is the integral reference and holds this many protons (at most one pick per sidecar). */
+  protons?: number;
   note?: string;
 }
 

@@ -113,14 +113,49 @@ function readPick(r: MapReader): Pick | undefined {
     r.fail(r.node('label', true), 'invalid-value', 'label', `expected at most two atom labels, found ${label.length}`);
   }
   const kind = r.choice('kind', PICK_KINDS, false);
+  const region = readRegion(r, f2Ppm, f1Ppm);
+  const protons = readProtons(r, f1Ppm);
   const note = r.string('note', false);
   if (id === undefined || f2Ppm === undefined || label === undefined || !r.ok) return undefined;
   return {
     id, f2Ppm, label,
     ...(f1Ppm !== undefined && { f1Ppm }),
+    ...region,
     ...(kind !== undefined && { kind }),
+    ...(protons !== undefined && { protons }),
     ...(note !== undefined && { note }),
   };
+}
+
+/** A 1D multiplet's region: both ends or neither, high ppm first, around the pick (SCHEMA.md). */
+function readRegion(r: MapReader, f2Ppm: number | undefined, f1Ppm: number | undefined): { fromPpm?: number; toPpm?: number } {
+  const fromPpm = r.number('from_ppm', false);
+  const toPpm = r.number('to_ppm', false);
+  if (fromPpm === undefined && toPpm === undefined) return {};
+  const at = r.node(fromPpm === undefined ? 'to_ppm' : 'from_ppm', false);
+  if (fromPpm === undefined || toPpm === undefined) {
+    r.fail(at, 'missing-field', fromPpm === undefined ? 'from_ppm' : 'to_ppm', 'a multiplet region needs both from_ppm and to_ppm');
+  } else if (f1Ppm !== undefined) {
+    r.fail(at, 'invalid-value', 'from_ppm', 'a region belongs to a 1D multiplet; this pick has f1_ppm');
+  } else if (!(fromPpm > toPpm)) {
+    r.fail(at, 'invalid-value', 'from_ppm', `must be above to_ppm (high to low ppm), found ${fromPpm} and ${toPpm}`);
+  } else if (f2Ppm !== undefined && (f2Ppm > fromPpm || f2Ppm < toPpm)) {
+    r.warn(at, 'invalid-value', 'from_ppm', `f2_ppm ${f2Ppm} lies outside the region ${fromPpm}..${toPpm} ppm`);
+  }
+  return fromPpm !== undefined && toPpm !== undefined ? { fromPpm, toPpm } : {};
+}
+
+/** The integral reference: a whole number of protons on a 1D multiplet. */
+function readProtons(r: MapReader, f1Ppm: number | undefined): number | undefined {
+  const protons = r.number('protons', false);
+  if (protons === undefined) return undefined;
+  const at = r.node('protons', false);
+  if (!Number.isInteger(protons) || protons < 1 || protons > 99) {
+    r.fail(at, 'invalid-value', 'protons', `expected a whole number of protons from 1 to 99, found ${protons}`);
+  } else if (f1Ppm !== undefined) {
+    r.fail(at, 'invalid-value', 'protons', 'the integral reference is a 1D multiplet; this pick has f1_ppm');
+  }
+  return protons;
 }
 
 function readCoupling(r: MapReader): Coupling | undefined {
@@ -151,7 +186,15 @@ function readCoupling(r: MapReader): Coupling | undefined {
 
 function checkPickIds(picks: Located<Pick>[], sink: DiagnosticSink): void {
   const seen = new Map<string, string>();
+  let reference: string | undefined;
   picks.forEach((p, i) => {
+    if (p.value.protons !== undefined) {
+      // Two references could disagree; one per spectrum keeps the proton counts unambiguous.
+      if (reference !== undefined) {
+        sink.node(p.node.get('protons', true) as Node | undefined, p.node.range?.[0] ?? 0, 'error', 'invalid-value', `${p.path}.protons`,
+          `only one pick per sidecar may set the integral reference; ${reference} already does`);
+      } else reference = p.path;
+    }
     const first = seen.get(p.value.id);
     if (first !== undefined) {
       sink.node(p.node, 0, 'error', 'duplicate-pick-id', `${p.path}.id`, `id "${p.value.id}" is already used by ${first}`);
