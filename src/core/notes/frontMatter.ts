@@ -5,7 +5,7 @@
 import { parse } from 'yaml';
 
 /** Front matter is a `---` line at the very top, closed by the next `---` (or `...`) line. */
-const FRONT_MATTER = /^---[ \t]*\r?\n([\s\S]*?)\r?\n(?:---|\.\.\.)[ \t]*(?:\r?\n|$)/;
+export const FRONT_MATTER = /^---[ \t]*\r?\n([\s\S]*?)\r?\n(?:---|\.\.\.)[ \t]*(?:\r?\n|$)/;
 
 export interface FrontMatter {
   /** The compound id, or null when the note names none. */
