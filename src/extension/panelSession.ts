@@ -44,6 +44,8 @@ export interface SessionPorts {
   inform(message: string): void;
   /** Batch work with progress and a cancel button. */
   withProgress<T>(title: string, work: (report: (done: number, total: number) => void, token: CancelToken) => Promise<T>): Promise<T>;
+  /** Called after `init` was posted: a (re)loaded webview has forgotten what else the host had shown. */
+  afterInit?(): void;
 }
 
 type Method = 'fit' | 'naive';
@@ -117,6 +119,7 @@ export class PanelSession {
       type: 'init', spectrum: spectrumMeta(this.model), settings: this.ports.settings(),
       peaks: peakViews(this.model), sidecar: this.state().view, knownLabels: [...knownLabels],
     });
+    this.ports.afterInit?.();
   }
 
   private tile(id: number, r: { region: { row0: number; row1: number; col0: number; col1: number }; maxRows: number; maxCols: number }): void {

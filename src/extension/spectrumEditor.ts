@@ -8,6 +8,7 @@ import { publish } from './diagnostics';
 import { writeUndoable } from './editHistory';
 import type { WorkerLike } from './fitClient';
 import { PanelSession, type CancelToken, type Measurer, type SessionPorts, type SidecarStore } from './panelSession';
+import { CompareOverlay } from './review/compareOverlay';
 import { readSettings } from './settings';
 import { sidecarState } from './sidecarState';
 import { SpectrumDocument } from './spectrumDocument';
@@ -20,6 +21,8 @@ export interface OpenPanel {
   readonly document: SpectrumDocument;
   readonly panel: vscode.WebviewPanel;
   readonly session: PanelSession;
+  /** The compare overlay (issue 6 review), refreshed when the sidecar changes. */
+  readonly overlay: CompareOverlay;
 }
 
 const noMeasurer: Measurer = {
@@ -82,13 +85,18 @@ export class SpectrumEditorProvider implements vscode.CustomEditorProvider<Spect
         (e) => this.edits.fire({ document, label: e.label, undo: e.undo, redo: e.redo }),
         (m) => void vscode.window.showWarningMessage(m)),
     };
-    const session = new PanelSession(document.model, store, document.fits ?? noMeasurer, this.ports(panel));
-    const entry: OpenPanel = { document, panel, session };
+    const overlay = new CompareOverlay(store.fileName, store.text, (m) => void panel.webview.postMessage(m));
+    // A webview restored after being hidden starts again with `ready`: after its init, the overlay comes back.
+    const session = new PanelSession(document.model, store, document.fits ?? noMeasurer, { ...this.ports(panel), afterInit: () => overlay.restored() });
+    const entry: OpenPanel = { document, panel, session, overlay };
     this.panels.add(entry);
     this.lastActive = entry;
     const subs = [
       panel.webview.onDidReceiveMessage((m: unknown) => void session.receive(m)),
-      document.store.onDidChange(() => session.sidecarChanged()),
+      document.store.onDidChange(() => {
+        session.sidecarChanged();
+        overlay.sidecarChanged();
+      }),
       vscode.workspace.onDidChangeConfiguration((e) => {
         if (e.affectsConfiguration('couplet')) session.settingsChanged();
       }),
@@ -98,6 +106,7 @@ export class SpectrumEditorProvider implements vscode.CustomEditorProvider<Spect
     ];
     panel.onDidDispose(() => {
       subs.forEach((s) => s.dispose());
+      overlay.dispose();
       this.panels.delete(entry);
       if (this.lastActive === entry) this.lastActive = undefined;
     });

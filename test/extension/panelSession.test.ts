@@ -61,6 +61,13 @@ describe('PanelSession', () => {
     h = harness();
   });
 
+  it('calls afterInit once init is posted, so a reloaded webview gets the overlay back after its init', async () => {
+    const order: string[] = [];
+    const k = harness(null, testModel(), { afterInit: () => void order.push(`afterInit after ${k.posted.map((m) => m.type).join(',')}`) });
+    await k.session.receive({ type: 'ready' });
+    expect(order).toEqual(['afterInit after init']);
+  });
+
   it('answers ready with init: spectrum axes, settings, peaks, sidecar and known labels', async () => {
     await h.session.receive({ type: 'ready' });
     const m = last(h);
