@@ -63,6 +63,10 @@ export class PanelSession {
   private readonly measured = new Map<string, Measurement>();
   /** Accepted before the pick had two labels: becomes a coupling when it is labelled. */
   private readonly pending = new Map<string, CouplingValues>();
+  /** Counts `cancel` messages: a batch ends when it changes, even between two fits (nothing in flight to kill). */
+  private cancels = 0;
+  /** Set when the panel closed: its webview is gone, so nothing is posted and running batches end. */
+  private disposed = false;
 
   constructor(readonly model: SpectrumModel, private readonly store: SidecarStore, private readonly measurer: Measurer, private readonly ports: SessionPorts) {}
 
@@ -70,18 +74,29 @@ export class PanelSession {
     return sidecarState(this.store.text(), this.store.fileName, this.model.sha256);
   }
 
+  /** Call when the panel closes. */
+  dispose(): void {
+    this.disposed = true;
+  }
+
+  /** Posting to a closed webview throws in VS Code; a late reply has nobody to go to. */
+  private post(message: ToWebview): void {
+    if (!this.disposed) this.ports.post(message);
+  }
+
   /** Call when the sidecar text changed for any reason (edit, undo, revert, checkout). */
   sidecarChanged(): void {
-    this.ports.post({ type: 'sidecar', sidecar: this.state().view });
+    this.post({ type: 'sidecar', sidecar: this.state().view });
   }
 
   /** Call when a `couplet.*` setting changed: the open panel redraws with the new values. */
   settingsChanged(): void {
-    this.ports.post({ type: 'settings', settings: this.ports.settings() });
+    this.post({ type: 'settings', settings: this.ports.settings() });
   }
 
   /** Validates and handles one raw message; invalid ones are logged and dropped. */
   async receive(raw: unknown): Promise<void> {
+    if (this.disposed) return;
     const parsed = parseFromWebview(raw);
     if (!parsed.ok) {
       this.ports.log(`ignored a message from the ${this.model.fileName} panel: ${parsed.error}`);
@@ -92,7 +107,7 @@ export class PanelSession {
     } catch (e) {
       // A bug must not leave the panel waiting in silence: say what failed, keep the host running.
       this.ports.log(`${this.model.fileName}: handling "${parsed.value.type}" failed: ${e instanceof Error ? e.stack ?? e.message : String(e)}`);
-      this.ports.post({ type: 'error', message: `Couplet could not handle "${parsed.value.type}": ${describe(e)}` });
+      this.post({ type: 'error', message: `Couplet could not handle "${parsed.value.type}": ${describe(e)}` });
     }
   }
 
@@ -105,7 +120,7 @@ export class PanelSession {
       case 'label': await this.edit(`Label ${m.pickId}`, (t) => labelText(this.existing(t), this.store.fileName, m.pickId, m.labels, this.pending.get(m.pickId))); return;
       case 'removePick': await this.removePick(m.pickId); return;
       case 'measureAll': await this.measureAll(m.method); return;
-      case 'cancel': this.measurer.cancel(); return;
+      case 'cancel': this.cancels++; this.measurer.cancel(); return;
     }
   }
 
@@ -115,7 +130,7 @@ export class PanelSession {
       this.ports.log(`could not collect atom labels from the workspace: ${describe(e)}`);
       return [];
     });
-    this.ports.post({
+    this.post({
       type: 'init', spectrum: spectrumMeta(this.model), settings: this.ports.settings(),
       peaks: peakViews(this.model), sidecar: this.state().view, knownLabels: [...knownLabels],
     });
@@ -126,10 +141,10 @@ export class PanelSession {
     const { rows, cols } = gridSize(this.model.spectrum);
     const g = r.region;
     if (g.row1 >= rows || g.col1 >= cols) {
-      this.ports.post({ type: 'error', inReplyTo: id, message: `tile rows ${g.row0}..${g.row1}, cols ${g.col0}..${g.col1} are outside the ${rows} x ${cols} grid of ${this.model.fileName}` });
+      this.post({ type: 'error', inReplyTo: id, message: `tile rows ${g.row0}..${g.row1}, cols ${g.col0}..${g.col1} are outside the ${rows} x ${cols} grid of ${this.model.fileName}` });
       return;
     }
-    this.ports.post(tileFor(this.model, id, g, r.maxRows, r.maxCols));
+    this.post(tileFor(this.model, id, g, r.maxRows, r.maxCols));
   }
 
   /** The cross peak a request names, or a message saying why it cannot be measured. */
@@ -156,9 +171,9 @@ export class PanelSession {
   private async measureOne(id: number, index: number, method: Method, dimension: Dim): Promise<void> {
     try {
       const m = await this.measurement(index, method, dimension);
-      this.ports.post({ type: 'measured', inReplyTo: id, measurement: measurementView(index, m) });
+      this.post({ type: 'measured', inReplyTo: id, measurement: measurementView(index, m) });
     } catch (e) {
-      this.ports.post({ type: 'error', inReplyTo: id, message: describe(e) });
+      this.post({ type: 'error', inReplyTo: id, message: describe(e) });
     }
   }
 
@@ -236,12 +251,13 @@ export class PanelSession {
     const indices = this.model.crossPeaks.flatMap((p, i) => (p.kind === 'cross' ? [i] : []));
     const failed: string[] = [];
     let measured = 0;
+    const cancels = this.cancels;
     const cancelled = await this.ports.withProgress(`Measuring ${indices.length} cross peaks in ${this.model.fileName}`, async (report, token) => {
       token.onCancel(() => this.measurer.cancel());
       for (const [n, i] of indices.entries()) {
-        if (token.cancelled) return true;
+        if (token.cancelled || this.cancels !== cancels || this.disposed) return true;
         report(n, indices.length);
-        this.ports.post({ type: 'progress', task: 'measureAll', done: n, total: indices.length });
+        this.post({ type: 'progress', task: 'measureAll', done: n, total: indices.length });
         try {
           const r = await this.measurement(i, method, dimension);
           measured++;
@@ -253,7 +269,7 @@ export class PanelSession {
           failed.push(`peak ${i}: ${describe(e)}`);
         }
       }
-      this.ports.post({ type: 'progress', task: 'measureAll', done: indices.length, total: indices.length });
+      this.post({ type: 'progress', task: 'measureAll', done: indices.length, total: indices.length });
       return false;
     });
     for (const f of failed) this.ports.log(`${this.model.fileName} ${f}`);
@@ -286,7 +302,7 @@ export class PanelSession {
 
   private refuse(message: string): false {
     this.ports.notify(message);
-    this.ports.post({ type: 'error', message });
+    this.post({ type: 'error', message });
     return false;
   }
 }

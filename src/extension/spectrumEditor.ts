@@ -106,6 +106,7 @@ export class SpectrumEditorProvider implements vscode.CustomEditorProvider<Spect
     ];
     panel.onDidDispose(() => {
       subs.forEach((s) => s.dispose());
+      session.dispose();
       overlay.dispose();
       this.panels.delete(entry);
       if (this.lastActive === entry) this.lastActive = undefined;

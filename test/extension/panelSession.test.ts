@@ -20,6 +20,8 @@ interface Harness {
   infos: string[];
   store: SidecarStore & { value: string | null; writes: number };
   measured: number;
+  /** Runs inside each measurement, before it returns (to act while a fit is in flight). */
+  duringMeasure?: () => void;
 }
 
 function harness(initial: string | null = null, model = testModel(), overrides: Partial<SessionPorts> = {}): Harness {
@@ -34,6 +36,7 @@ function harness(initial: string | null = null, model = testModel(), overrides: 
   const measurer: Measurer = {
     measure: async (peak, options) => {
       h.measured++;
+      h.duringMeasure?.();
       if (s2.dims !== 2) throw new Error('1D');
       return measureCrossPeak(s2, peak, options);
     },
@@ -210,6 +213,37 @@ describe('PanelSession', () => {
     const r = await h2.session.measureAll('naive');
     expect(r.cancelled).toBe(true);
     expect(r.measured).toBeLessThan(2);
+  });
+});
+
+describe('PanelSession: cancel and close', () => {
+  it('stops measuring all when the panel sends cancel (Esc), also when it arrives between two fits', async () => {
+    const h = harness();
+    // The in-process measurer cannot be interrupted: cancel lands while fit 1 runs and must stop fit 2.
+    h.duringMeasure = () => void h.session.receive({ type: 'cancel' });
+    const r = await h.session.measureAll('naive');
+    expect(r).toEqual({ measured: 1, failed: [], cancelled: true });
+    expect(h.measured).toBe(1);
+  });
+
+  it('posts nothing once the panel is closed, ignores its late messages, and ends a running batch', async () => {
+    const h = harness();
+    h.duringMeasure = () => h.session.dispose();
+    const r = await h.session.measureAll('naive');
+    expect(r.cancelled).toBe(true);
+    expect(h.measured).toBe(1);
+    const before = h.posted.length;
+    await h.session.receive({ type: 'ready' });
+    await h.session.receive({ type: 'measure', id: 7, peakIndex: 1, method: 'naive', dimension: 'F2' });
+    h.session.sidecarChanged();
+    expect(h.posted.length).toBe(before);
+    expect(h.measured).toBe(1);
+  });
+
+  it('still measures all after an earlier cancel (a cancel ends only the batch it met)', async () => {
+    const h = harness();
+    await h.session.receive({ type: 'cancel' });
+    expect(await h.session.measureAll('naive')).toEqual({ measured: 2, failed: [], cancelled: false });
   });
 });
 
