@@ -15,7 +15,10 @@ import { parseSidecar } from '../core/sidecar';
 import type { Spectrum, Spectrum1D } from '../core/spectrum/spectrum';
 import { labelsInMarkdown } from '../core/notes/labels';
 import { readFrontMatter } from '../core/notes/frontMatter';
+import { readKarplusRequests, type KarplusRequest } from '../core/notes/karplusRequests';
+import { karplusMarkdown, karplusTex } from '../core/report/karplusFormat';
 import { findCompounds } from './compounds';
+import { nmredataOutput } from './nmredataExport';
 import { EXIT_OK, InputError } from './errors';
 import { SPECTRUM_EXTENSIONS, loadSpectrum, type CliIo } from './io';
 
@@ -43,14 +46,21 @@ function readSource(folder: string, file: string): NetworkSource {
   return { file: basename(file), sidecar: r.sidecar };
 }
 
-function noteOf(folder: string): { compound: string; solvent: string | null; labels: string[] } {
+interface NoteData { compound: string; solvent: string | null; labels: string[]; karplus: KarplusRequest[] }
+
+function noteOf(folder: string): NoteData {
   for (const name of readdirSync(folder).sort()) {
     if (!/\.(md|markdown)$/i.test(name)) continue;
-    const text = readBytes(join(folder, name)).toString('utf8');
+    const path = join(folder, name);
+    const text = readBytes(path).toString('utf8');
     const fm = readFrontMatter(text);
-    if (fm.compound !== null) return { compound: fm.compound, solvent: fm.solvent, labels: labelsInMarkdown(text.slice(fm.end)) };
+    if (fm.compound === null) continue;
+    // A mistyped request must not vanish from the report: stop and say where it is.
+    const k = readKarplusRequests(text, path);
+    if (k.problems.length > 0) throw new InputError(`${path}: cannot read the karplus requests:\n${k.problems.map((p) => `  ${p.text}`).join('\n')}`);
+    return { compound: fm.compound, solvent: fm.solvent, labels: labelsInMarkdown(text.slice(fm.end)), karplus: k.requests };
   }
-  return { compound: basename(folder), solvent: null, labels: [] };
+  return { compound: basename(folder), solvent: null, labels: [], karplus: [] };
 }
 
 function spectraOf(folder: string): { name: string; spectrum: Spectrum }[] {
@@ -75,6 +85,7 @@ export function buildReports(target: string): CompoundReport[] {
       compound: note.compound, sources, observeMhz, solvent: note.solvent,
       ...(oneD && oneDEntry && { spectrum1D: oneD, spectrum1DFile: oneDEntry.name }),
       ...(note.labels.length > 0 && { noteLabels: note.labels }),
+      ...(note.karplus.length > 0 && { karplus: note.karplus }),
     }));
   }
   if (out.length === 0) throw new InputError(`${target}: no sidecars (*.couplet.yaml) found`);
@@ -92,13 +103,14 @@ function markdownOf(r: CompoundReport): string {
   lines.push('### Consistency', '');
   if (r.network.diagnostics.length === 0) lines.push('Every pair measured more than once agrees within 3 combined sd.', '');
   else lines.push(...r.network.diagnostics.map((d) => `- ${d.message}`), '');
+  if (r.karplus.length > 0) lines.push(karplusMarkdown(r.karplus));
   return lines.join('\n');
 }
 
 export function formatReports(rs: readonly CompoundReport[], format: ReportFormat): string {
   switch (format) {
     case 'json': return JSON.stringify({ compounds: rs.map(compoundReportJson) }, null, 2) + '\n';
-    case 'tex': return rs.map((r) => [`% ${r.compound}`, r.siLine.tex, ...r.notes.map((n) => `% ${n}`)].join('\n') + '\n').join('\n');
+    case 'tex': return rs.map((r) => [`% ${r.compound}`, r.siLine.tex, ...r.notes.map((n) => `% ${n}`), ...(r.karplus.length > 0 ? ['', karplusTex(r.karplus).trimEnd()] : [])].join('\n') + '\n').join('\n');
     case 'csv': {
       // One header, then every compound's rows with the compound id in front.
       const tables = rs.map((r) => jTableCsv(r.network).split('\r\n').filter((l) => l !== ''));
@@ -118,7 +130,9 @@ export function registerReport(program: Command, io: CliIo, setCode: (code: numb
     .argument('<target>', 'a directory searched for sidecars, or one sidecar (*.couplet.yaml)')
     .addOption(new Option('--format <format>', 'md, tex, json, csv (J table) or nmredata (SD file)').choices(['md', 'tex', 'json', 'csv', 'nmredata']).default('md'))
     .action((target: string, o: { format: ReportFormat }) => {
-      io.out(formatReports(buildReports(target), o.format));
+      const reports = buildReports(target);
+      // NMReDATA needs more than the reports: the note's structure, label shifts, data file names.
+      io.out(o.format === 'nmredata' ? nmredataOutput(target, reports, io) : formatReports(reports, o.format));
       setCode(EXIT_OK);
     });
 }

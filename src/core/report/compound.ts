@@ -6,6 +6,9 @@
 import { buildNetwork, type CouplingNetwork, type NetworkSource } from '../network/network';
 import { SCHEMA_ID, type Sidecar } from '../sidecar/types';
 import type { Spectrum1D } from '../spectrum/spectrum';
+import type { KarplusRequest } from '../notes/karplusRequests';
+import { karplusJson } from './karplusFormat';
+import { karplusEstimates, type KarplusEstimate } from './karplusReport';
 import { deriveSiEntries, type DerivedSi } from './siEntries';
 import { formatSiLine, siLineJson, siNotes, type SiHeader } from './siLine';
 
@@ -20,6 +23,8 @@ export interface CompoundInput {
   noteLabels?: readonly string[];
   /** Name of the 1D data file, shown as the source of 1D splittings (default `1D spectrum`). */
   spectrum1DFile?: string;
+  /** Pairs the note's front matter asks dihedral estimates for (`karplus:`). */
+  karplus?: readonly KarplusRequest[];
 }
 
 export interface CompoundReport {
@@ -30,6 +35,8 @@ export interface CompoundReport {
   siLine: { md: string; tex: string };
   /** What the line did with flagged values, plus derivation notes: never silent. */
   notes: string[];
+  /** Dihedral estimates for the requested pairs, from the adopted J (empty when none requested). */
+  karplus: KarplusEstimate[];
 }
 
 /** Written in place of the solvent when the note names none, so the gap is visible in the SI. */
@@ -62,6 +69,7 @@ export function compoundReport(input: CompoundInput): CompoundReport {
     compound: input.compound, header, network, derived,
     siLine: { md: formatSiLine(header, derived.entries, 'md'), tex: formatSiLine(header, derived.entries, 'tex') },
     notes,
+    karplus: karplusEstimates(input.karplus ?? [], network),
   };
 }
 
@@ -80,5 +88,6 @@ export function compoundReportJson(r: CompoundReport): Record<string, unknown> {
     })),
     diagnostics: r.network.diagnostics.map((d) => ({ severity: d.severity, code: d.code, atoms: d.atoms, message: d.message })),
     notes: r.notes,
+    ...(r.karplus.length > 0 && { karplus: karplusJson(r.karplus) }),
   };
 }
