@@ -39,6 +39,8 @@ export class FitClient {
   private nextId = 1;
   private readonly pending = new Map<number, Pending>();
   private readonly spectrum: SpectrumTransfer | null;
+  /** After dispose no worker is started again (a request arriving late would otherwise leak one). */
+  private disposed = false;
 
   /** `spectrum` is loaded into every worker this client starts (null for a client that only opens files). */
   constructor(private readonly spawn: () => WorkerLike, spectrum: SpectrumTransfer | null) {
@@ -68,10 +70,12 @@ export class FitClient {
   }
 
   dispose(): void {
+    this.disposed = true;
     this.stop(new CancelledError('the spectrum panel was closed'));
   }
 
   private request(r: Request): Promise<FromWorker> {
+    if (this.disposed) return Promise.reject(new CancelledError('the spectrum panel was closed'));
     const worker = this.ensureWorker();
     const id = this.nextId++;
     return new Promise<FromWorker>((resolve, reject) => {

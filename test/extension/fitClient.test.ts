@@ -162,4 +162,13 @@ describe('FitClient bookkeeping (fake worker)', () => {
     expect(w.terminated).toBe(true);
     await expect(a).rejects.toThrow('the spectrum panel was closed');
   });
+
+  it('starts no new worker after dispose: a late request (a message from a closing panel) is refused', async () => {
+    let spawned = 0;
+    const client = new FitClient(() => (spawned++, new FakeWorker()), null);
+    client.dispose();
+    await expect(client.measure(peakAt, {})).rejects.toBeInstanceOf(CancelledError);
+    expect(spawned).toBe(0);
+    expect(client.inFlight).toBe(0);
+  });
 });
