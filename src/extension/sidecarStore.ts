@@ -7,6 +7,7 @@ import * as vscode from 'vscode';
 import { lineDiffEdits } from '../core/sidecar';
 import type { SidecarStore } from './panelSession';
 import { LatestText } from './latestText';
+import { revertToDisk } from './revertText';
 import { SaveQueue } from './saveQueue';
 
 export class VsSidecarStore implements SidecarStore, vscode.Disposable {
@@ -106,19 +107,16 @@ export class VsSidecarStore implements SidecarStore, vscode.Disposable {
     return this.readFile().catch(() => null);
   }
 
-  /** Back to the text on disk: the document is replaced by it and saved, so it is no longer dirty. */
+  /** Back to the text on disk: the document is replaced by it and saved (revertText.ts), so it is no longer dirty. */
   async revert(): Promise<void> {
     const doc = this.openDocument();
     if (!doc || !doc.isDirty) return this.readDisk();
-    let disk = '';
-    try {
-      disk = new TextDecoder('utf-8').decode(await vscode.workspace.fs.readFile(this.uri));
-    } catch (e) {
-      if (!(e instanceof vscode.FileSystemError && e.code === 'FileNotFound')) throw e;
-    }
-    const edit = new vscode.WorkspaceEdit();
-    edit.replace(this.uri, new vscode.Range(doc.positionAt(0), doc.positionAt(doc.getText().length)), disk);
-    if (await vscode.workspace.applyEdit(edit)) await doc.save();
+    const replaceAll = (text: string): Thenable<boolean> => {
+      const edit = new vscode.WorkspaceEdit();
+      edit.replace(this.uri, new vscode.Range(doc.positionAt(0), doc.positionAt(doc.getText().length)), text);
+      return vscode.workspace.applyEdit(edit);
+    };
+    await revertToDisk({ get isDirty() { return doc.isDirty; }, getText: () => doc.getText(), replaceAll, save: () => doc.save() }, () => this.readFile(), this.fileName);
   }
 
   /**
