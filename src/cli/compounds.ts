@@ -1,6 +1,9 @@
-/** Where the compounds are: sidecar files grouped by their folder (for check and report). */
-import { readdirSync, statSync } from 'node:fs';
-import { dirname, join } from 'node:path';
+/** Where the compounds are: sidecar files grouped by their folder (for check and report), and the structure a note names. */
+import { readFileSync, readdirSync, statSync } from 'node:fs';
+import { basename, dirname, join } from 'node:path';
+import type { NmredataStructure } from '../core/report/nmredata';
+import { MolfileError, parseMolfile } from '../core/structure/molfile';
+import { checkAtomMap, readStructureRef, type NoteProblem } from '../core/structure/structureRef';
 import { InputError } from './errors';
 
 export const SIDECAR = '.couplet.yaml';
@@ -32,4 +35,31 @@ export function findCompounds(target: string): Map<string, string[]> {
   };
   walk(target);
   return byFolder;
+}
+
+/** The structure a note names (`structure:`, `atoms:`), read and checked; null when it names none. */
+export function readNoteStructure(notePath: string, noteText: string): NmredataStructure | null {
+  const ref = readStructureRef(noteText);
+  const fail = (problems: readonly NoteProblem[]): never => {
+    throw new InputError(problems.map((p) => `${notePath}:${p.line}: ${p.field}: ${p.message}`).join('\n'));
+  };
+  if (ref.problems.length > 0) fail(ref.problems);
+  if (ref.structure === null) return null;
+  const molPath = join(dirname(notePath), ref.structure);
+  let text: string;
+  try {
+    text = readFileSync(molPath, 'utf8');
+  } catch (e) {
+    return fail([{ line: ref.structureLine, field: 'structure', message: `cannot read ${molPath} (${(e as NodeJS.ErrnoException).code ?? String(e)})` }]);
+  }
+  let molfile;
+  try {
+    molfile = parseMolfile(text, molPath);
+  } catch (e) {
+    if (e instanceof MolfileError) throw new InputError(e.message);
+    throw e;
+  }
+  const problems = checkAtomMap(ref, molfile, basename(molPath));
+  if (problems.length > 0) fail(problems);
+  return { molfile, atoms: ref.atoms, file: basename(molPath) };
 }
