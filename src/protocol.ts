@@ -5,6 +5,7 @@
  * validated with `parseFromWebview` / `parseToWebview` before use: a webview is a separate
  * process and a stale or damaged message must not reach the host's logic.
  */
+import { isMeasurementView, isNum, isObj, isPeakView, isSidecarView, isSpectrumMeta, isStr, isStrList } from './protocolShapes';
 
 /** One axis as the webview needs it (ppm = Hz / observeMhz). */
 export interface AxisMeta {
@@ -254,16 +255,11 @@ export type Parsed<T> = { readonly ok: true; readonly value: T } | { readonly ok
 
 type Obj = Record<string, unknown>;
 
-const isObj = (v: unknown): v is Obj => typeof v === 'object' && v !== null && !Array.isArray(v);
 const isInt = (v: unknown): v is number => typeof v === 'number' && Number.isInteger(v);
 const isNonNegInt = (v: unknown): v is number => isInt(v) && v >= 0;
 const isPosInt = (v: unknown): v is number => isInt(v) && v > 0;
-const isStr = (v: unknown): v is string => typeof v === 'string';
-const isStrList = (v: unknown): v is string[] => Array.isArray(v) && v.every(isStr);
 const isMethod = (v: unknown): v is 'fit' | 'naive' => v === 'fit' || v === 'naive';
 const isDim = (v: unknown): v is 'F2' | 'F1' => v === 'F2' || v === 'F1';
-
-const isNum = (v: unknown): v is number => typeof v === 'number' && Number.isFinite(v);
 
 /** Shapes only; the webview still checks the contour values' ranges (checkContourSettings). */
 function isViewSettings(v: unknown): v is ViewSettings {
@@ -312,14 +308,18 @@ export function parseFromWebview(raw: unknown): Parsed<FromWebview> {
   return parseWith<FromWebview>(FROM_WEBVIEW, raw);
 }
 
+/** Every panel command once (the Record makes the compiler ask for a new one). */
+const PANEL_COMMANDS: Readonly<Record<CommandMessage['command'], true>> = { nextPeak: true, previousPeak: true, measure: true, accept: true, label: true, zoomToPeak: true, resetZoom: true };
+
 const TO_WEBVIEW: Record<ToWebview['type'], (m: Obj) => string | null> = {
-  init: (m) => (!isObj(m.spectrum) ? 'spectrum' : !isObj(m.settings) ? 'settings' : !Array.isArray(m.peaks) ? 'peaks' : !isObj(m.sidecar) ? 'sidecar' : !isStrList(m.knownLabels) ? 'knownLabels' : null),
+  init: (m) => (!isSpectrumMeta(m.spectrum) ? 'spectrum' : !isViewSettings(m.settings) ? 'settings' : !(Array.isArray(m.peaks) && m.peaks.every(isPeakView)) ? 'peaks'
+    : !isSidecarView(m.sidecar) ? 'sidecar' : !isStrList(m.knownLabels) ? 'knownLabels' : null),
   tile: (m) => (!isNonNegInt(m.inReplyTo) ? 'inReplyTo' : !isRegion(m.region) ? 'region' : !isPosInt(m.rows) ? 'rows' : !isPosInt(m.cols) ? 'cols' : !(m.data instanceof Float32Array) || m.data.length !== (m.rows as number) * (m.cols as number) ? 'data' : null),
-  sidecar: (m) => (!isObj(m.sidecar) ? 'sidecar' : null),
-  measured: (m) => (!isNonNegInt(m.inReplyTo) ? 'inReplyTo' : !isObj(m.measurement) ? 'measurement' : null),
+  sidecar: (m) => (!isSidecarView(m.sidecar) ? 'sidecar' : null),
+  measured: (m) => (!isNonNegInt(m.inReplyTo) ? 'inReplyTo' : !isMeasurementView(m.measurement) ? 'measurement' : null),
   progress: (m) => (!isStr(m.task) ? 'task' : !isNonNegInt(m.done) ? 'done' : !isNonNegInt(m.total) ? 'total' : null),
   error: (m) => (!isStr(m.message) ? 'message' : null),
-  command: (m) => (!isStr(m.command) ? 'command' : null),
+  command: (m) => (!(isStr(m.command) && Object.hasOwn(PANEL_COMMANDS, m.command)) ? 'command' : null),
   settings: (m) => (!isViewSettings(m.settings) ? 'settings' : null),
   compare: (m) => (!(m.against === null || isStr(m.against)) ? 'against' : !(Array.isArray(m.marks) && m.marks.every(isReviewMark)) ? 'marks' : null),
 };

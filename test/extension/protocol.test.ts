@@ -80,3 +80,40 @@ describe('parseToWebview: settings', () => {
     expect(parseToWebview({ type: 'settings', settings: bad })).toEqual({ ok: false, error: 'message "settings": field "settings" is missing or invalid' });
   });
 });
+
+describe('parseToWebview: the views the panel reads are checked before use', () => {
+  const settings = readSettings(() => undefined);
+  const axis = { points: 1024, firstHz: 3000, lastHz: 1800, observeMhz: 600 };
+  const spectrum = { fileName: 'cosy.jdx', title: 't', dims: 2, f1: { ...axis, points: 128 }, f2: axis, noise: 0.5, min: -10, max: 12 };
+  const peaks = [{ index: 0, kind: 'cross', f2Ppm: 4.2, f1Ppm: 3.85, extent: { f2FromPpm: 4.21, f2ToPpm: 4.19, f1FromPpm: 3.86, f1ToPpm: 3.84 }, partner: null }];
+  const sidecar = {
+    picks: [{ id: 'p-1', f2Ppm: 4.2, f1Ppm: 3.85, label: ['H-1', 'H-2'], kind: 'cross' }],
+    couplings: [{ atoms: ['H-1', 'H-2'], jHz: 7.5, jSdHz: 0.05, method: 'fit', dimension: 'F2', picks: ['p-1'], flags: [] }],
+    blocked: null,
+  };
+  const init = { type: 'init', spectrum, settings, peaks, sidecar, knownLabels: [] };
+  const trace = { f1Ppm: 3.85, fromPpm: 4.3, toPpm: 4.1, data: new Float32Array(4), fitted: new Float32Array(4), residual: new Float32Array(4) };
+  const measurement = { peakIndex: 0, jHz: 7.5, jSdHz: 0.05, passiveHz: [], linewidthHz: 1.2, method: 'fit', dimension: 'F2', flags: [], notes: [], traces: [trace] };
+
+  it('accepts well-formed init, sidecar, measured and command messages', () => {
+    expect(parseToWebview(init).ok).toBe(true);
+    expect(parseToWebview({ type: 'sidecar', sidecar }).ok).toBe(true);
+    expect(parseToWebview({ type: 'measured', inReplyTo: 3, measurement }).ok).toBe(true);
+    expect(parseToWebview({ type: 'command', command: 'nextPeak' }).ok).toBe(true);
+  });
+
+  it.each([
+    ['init', 'settings', { ...init, settings: { ...settings, jDecimals: 'two' } }],
+    ['init', 'spectrum', { ...init, spectrum: { ...spectrum, f1: undefined } }],
+    ['init', 'spectrum', { ...init, spectrum: { ...spectrum, f2: { ...axis, observeMhz: 0 } } }],
+    ['init', 'peaks', { ...init, peaks: [{ ...peaks[0], kind: 'ghost' }] }],
+    ['init', 'sidecar', { ...init, sidecar: { ...sidecar, picks: [{ id: 'p-1', label: [] }] } }],
+    ['sidecar', 'sidecar', { type: 'sidecar', sidecar: { picks: [], blocked: null } }],
+    ['sidecar', 'sidecar', { type: 'sidecar', sidecar: { ...sidecar, couplings: [{ ...sidecar.couplings[0], atoms: ['H-1'] }] } }],
+    ['measured', 'measurement', { type: 'measured', inReplyTo: 3, measurement: { ...measurement, jHz: '7.5' } }],
+    ['measured', 'measurement', { type: 'measured', inReplyTo: 3, measurement: { ...measurement, traces: [{ ...trace, data: [0, 0, 0, 0] }] } }],
+    ['command', 'command', { type: 'command', command: 'formatDisk' }],
+  ])('refuses a "%s" message whose "%s" the panel would misread', (type, field, m) => {
+    expect(parseToWebview(m)).toEqual({ ok: false, error: `message "${type}": field "${field}" is missing or invalid` });
+  });
+});
