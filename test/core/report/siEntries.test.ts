@@ -1,7 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { buildNetwork } from '../../../src/core/network';
 import { compoundReport } from '../../../src/core/report/compound';
-import { nmredataRecord } from '../../../src/core/report/nmredata';
 import { atomShifts, deriveSiEntries, protonUnit } from '../../../src/core/report/siEntries';
 import type { Coupling, Pick, Sidecar } from '../../../src/core/sidecar/types';
 
@@ -62,26 +61,5 @@ describe('protonUnit: whole proton counts from integrals', () => {
     const u = protonUnit([1.0, 2.06, 2.94])!;
     expect([1.0, 2.06, 2.94].map((x) => Math.round(x / u))).toEqual([1, 2, 3]);
     expect(protonUnit([2, 4, 6])).toBe(2);
-  });
-});
-
-describe('NMReDATA record (tag layout of Pupier et al., Magn. Reson. Chem. 56 (2018) 703, from memory)', () => {
-  const r = compoundReport({ compound: 'x', sources, observeMhz: 400.13, solvent: 'CDCl3' });
-  const sd = nmredataRecord(r);
-
-  it('is an SD record: empty V2000 molfile, tags as "> <NAME>", values ending in "\\", blank line after each tag, $$$$', () => {
-    const lines = sd.split('\n');
-    expect(lines[3]).toBe('  0  0  0  0  0  0  0  0  0  0999 V2000');
-    expect(lines[4]).toBe('M  END');
-    expect(sd).toContain('> <NMREDATA_VERSION>\n1.1\\\n\n');
-    expect(sd).toContain('> <NMREDATA_SOLVENT>\nCDCl3\\\n\n');
-    expect(sd.endsWith('$$$$\n')).toBe(true);
-  });
-
-  it('lists assignments, J, the 1D signals with Larmor= and S=, and the COSY with CorType=', () => {
-    expect(sd).toContain('> <NMREDATA_ASSIGNMENT>\nH-5, 6.3000\\\nH-6, 5.9000\\\nH-1, 4.1000\\\n');
-    expect(sd).toContain('H-5, H-6, 15.60\\\n');
-    expect(sd).toContain('> <NMREDATA_1D_1H>\nLarmor=400.13\\\n6.3000, S=d, N=1, L=H-5, E=1, J=15.60(H-6)\\\n');
-    expect(sd).toContain('> <NMREDATA_2D_1H_NJ_1H>\nLarmor=400.13\\\nCorType=DQF-COSY\\\nH-1/H-2a\\\n');
   });
 });
