@@ -4,12 +4,16 @@
  */
 import { toFixedDecimal } from '../../core/sidecar';
 import { shiftOf, type LabelInfo } from './labelIndex';
+import type { KarplusEstimate } from '../../core/report/karplusReport';
+import { karplusHoverLines } from './karplusHover';
 
 export interface HoverOptions {
   /** Decimals for J and sigma (the `couplet.display.jDecimals` setting). */
   readonly jDecimals: number;
   /** The multiplicity as the SI line reports it (e.g. `dd`, `m`), when it can be derived. */
   readonly multiplicity?: string;
+  /** Dihedral estimates of the pairs the note requests (front matter `karplus:`); those with this label are shown. */
+  readonly karplus?: readonly KarplusEstimate[];
 }
 
 /** Markdown table cells must not contain a bare `|`; labels and ids never should, but stay safe. */
@@ -25,7 +29,7 @@ export function hoverText(info: LabelInfo, o: HoverOptions): string {
     lines.push('', `Picked at ${from.join('; ')}`);
   }
   if (info.couplings.length === 0) {
-    lines.push('', 'No coupling measured yet.');
+    lines.push('', 'No coupling measured yet.', ...karplusHoverLines(info.label, o.karplus ?? []));
     return lines.join('\n');
   }
   lines.push('', '| partner | J (Hz) | σ (Hz) | method | flags | from |', '|---|---:|---:|---|---|---|');
@@ -35,5 +39,6 @@ export function hoverText(info: LabelInfo, o: HoverOptions): string {
     const from = `${c.fileName}${c.picks.length > 0 ? ` ${c.picks.map((p) => `\`${p}\``).join(', ')}` : ' (no pick)'}`;
     lines.push(`| ${cell(c.partner)} | ${toFixedDecimal(c.jHz, o.jDecimals)} | ${toFixedDecimal(c.jSdHz, o.jDecimals)} | ${c.method} ${c.dimension} | ${cell(c.flags.join(', ') || '—')} | ${cell(from)} |`);
   }
+  lines.push(...karplusHoverLines(info.label, o.karplus ?? []));
   return lines.join('\n');
 }

@@ -4,14 +4,15 @@
  */
 import { labelMatches } from '../../core/notes/labels';
 import type { FrontMatter } from '../../core/notes/frontMatter';
+import type { KarplusProblem } from '../../core/notes/karplusRequests';
 import type { LabelIndex } from './labelIndex';
 
 export interface NoteProblem {
   readonly offset: number;
   readonly length: number;
-  readonly severity: 'warning' | 'info';
+  readonly severity: 'error' | 'warning' | 'info';
   readonly message: string;
-  readonly code: 'unassigned-label' | 'unreadable-sidecar' | 'front-matter' | 'inconsistent-j';
+  readonly code: 'unassigned-label' | 'unreadable-sidecar' | 'front-matter' | 'inconsistent-j' | 'karplus-request';
 }
 
 /** A disagreement the coupling network found (core/network: two measurements of one pair differ). */
@@ -25,9 +26,13 @@ export interface PairProblem {
  * A warning once a 1D spectrum has picks (its multiplets should name every proton); before that
  * only information, because a DQF-COSY alone cannot assign an uncoupled proton such as a methoxy.
  */
-export function noteProblems(text: string, front: FrontMatter, index: LabelIndex, pairs: readonly PairProblem[] = []): NoteProblem[] {
+export function noteProblems(
+  text: string, front: FrontMatter, index: LabelIndex, pairs: readonly PairProblem[] = [], karplus: readonly KarplusProblem[] = [],
+): NoteProblem[] {
   const out: NoteProblem[] = [];
   if (front.problem !== null) out.push({ offset: 0, length: 3, severity: 'warning', message: front.problem, code: 'front-matter' });
+  // An error, as in `couplet report` (exit 2): a mistyped request would otherwise give no angles, silently.
+  for (const k of karplus) out.push({ offset: k.offset, length: k.length, severity: 'error', message: `${k.field}: ${k.message}`, code: 'karplus-request' });
   if (front.compound === null) return out;
   for (const u of index.unreadable) {
     out.push({ offset: 0, length: 3, severity: 'warning', message: `${u} (its labels are not checked)`, code: 'unreadable-sidecar' });

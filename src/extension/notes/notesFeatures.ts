@@ -8,6 +8,8 @@ import * as vscode from 'vscode';
 import { labelMatches } from '../../core/notes/labels';
 import { readSettings } from '../settings';
 import { readFrontMatter } from '../../core/notes/frontMatter';
+import { readKarplusRequests } from '../../core/notes/karplusRequests';
+import type { KarplusEstimate } from '../../core/report/karplusReport';
 import { hoverText } from './hoverText';
 import { labelCompletions, labelPrefixStart } from './labelCompletion';
 import { noteProblems, type PairProblem } from './noteDiagnostics';
@@ -23,6 +25,8 @@ export interface NoteAnalysis {
   multiplicity(note: vscode.TextDocument, compound: string, label: string): Promise<string | undefined>;
   /** J values of one pair that disagree (COSY, symmetric partner, 1D), as the report's network finds them. */
   pairProblems(note: vscode.TextDocument, compound: string): Promise<readonly PairProblem[]>;
+  /** Dihedral estimates for the pairs the note's front matter requests (`karplus:`), as the report gives them. */
+  karplus(note: vscode.TextDocument, compound: string): Promise<readonly KarplusEstimate[]>;
 }
 
 function completionProvider(): vscode.CompletionItemProvider {
@@ -58,8 +62,11 @@ function hoverProvider(analysis: NoteAnalysis): vscode.HoverProvider {
       const range = new vscode.Range(position.line, hit.offset, position.line, hit.offset + hit.label.length);
       if (!info) return new vscode.Hover(`**${hit.label}**: no spectrum of this compound assigns it yet.`, range);
       const jDecimals = readSettings((k) => vscode.workspace.getConfiguration().get(k)).jDecimals;
-      const m = await analysis.multiplicity(doc, compound, hit.label).catch(() => undefined);
-      return new vscode.Hover(new vscode.MarkdownString(hoverText(info, { jDecimals, ...(m !== undefined && { multiplicity: m }) })), range);
+      const [m, karplus] = await Promise.all([
+        analysis.multiplicity(doc, compound, hit.label).catch(() => undefined),
+        analysis.karplus(doc, compound).catch(() => []),
+      ]);
+      return new vscode.Hover(new vscode.MarkdownString(hoverText(info, { jDecimals, karplus, ...(m !== undefined && { multiplicity: m }) })), range);
     },
   };
 }
@@ -89,11 +96,12 @@ class NoteDiagnostics implements vscode.Disposable {
     }
     const sidecars = await compoundSidecars(doc.uri);
     const pairs = front.compound === null ? [] : await this.analysis.pairProblems(doc, front.compound).catch(() => []);
-    const problems = noteProblems(text, front, buildLabelIndex(sidecars), pairs);
+    const karplus = readKarplusRequests(text, doc.uri.path.split('/').pop() ?? 'note').problems;
+    const problems = noteProblems(text, front, buildLabelIndex(sidecars), pairs, karplus);
     if (doc.isClosed || doc.getText() !== text) return; // a newer refresh is on its way
     this.collection.set(doc.uri, problems.map((p) => {
       const d = new vscode.Diagnostic(new vscode.Range(doc.positionAt(p.offset), doc.positionAt(p.offset + p.length)), p.message,
-        p.severity === 'warning' ? vscode.DiagnosticSeverity.Warning : vscode.DiagnosticSeverity.Information);
+        p.severity === 'error' ? vscode.DiagnosticSeverity.Error : p.severity === 'warning' ? vscode.DiagnosticSeverity.Warning : vscode.DiagnosticSeverity.Information);
       d.source = 'couplet';
       d.code = p.code;
       return d;

@@ -11,6 +11,8 @@ import { parseJcamp } from '../../core/jcamp';
 import type { CompoundReport } from '../../core/report/compound';
 import type { Spectrum1D } from '../../core/spectrum/spectrum';
 import { labelsInMarkdown } from '../../core/notes/labels';
+import { readKarplusRequests } from '../../core/notes/karplusRequests';
+import { karplusEstimates, type KarplusEstimate } from '../../core/report/karplusReport';
 import { compoundSi, multiplicities, readSources, siText } from './compoundSi';
 import { readFrontMatter } from '../../core/notes/frontMatter';
 import type { SiText } from './insertSiCommand';
@@ -144,6 +146,17 @@ export class SiSource {
       return multiplicities(await this.compound(doc.uri, doc.getText(), compound, false)).get(label);
     } catch {
       return undefined;
+    }
+  }
+
+  /** For the hover: dihedral estimates of the pairs the note requests, from the network the report uses (none when it cannot be built). */
+  async karplus(doc: vscode.TextDocument, compound: string): Promise<readonly KarplusEstimate[]> {
+    const { requests } = readKarplusRequests(doc.getText(), doc.uri.path);
+    if (requests.length === 0) return [];
+    try {
+      return karplusEstimates(requests, (await this.compound(doc.uri, doc.getText(), compound, false)).network);
+    } catch {
+      return [];
     }
   }
 }
