@@ -3,19 +3,22 @@
  * (input.ts) and host messages (main.ts) call its methods; drawing happens once per animation
  * frame, and contouring is spread over frames (a few ms each) so input stays responsive.
  */
-import type { CompareMessage, ContourSettings, InitMessage, MeasurementView, PeakView, PickView, SidecarView, ViewSettings } from '../src/protocol';
+import type { CompareMessage, ContourSettings, InitMessage, PeakView, PickView, SidecarView, ViewSettings } from '../src/protocol';
 import type { Rpc } from './rpc';
-import { ContourCache, setLevels, step, type CacheEntry } from './contourCache';
+import { step, type CacheEntry } from './contourCache';
 import type { Action } from './keys';
 import { contourLevels, levelsKey, levelUnit, usableContours } from './levels';
-import { drawFrame, layoutFor, screenOf, type Frame, type Layout } from './plot';
+import { MeasureState } from './measureState';
+import { peakAt, pickOn } from './hitTest';
+import { drawFrame, layoutFor, type Frame, type Layout } from './plot';
 import type { View } from './scales';
 import { changeStatus, NO_REVIEW, stepChange, type ReviewState } from './review';
 import { readPalette, type Palette } from './theme';
-import { covers, planTile, type PointWindow, type TilePlan } from './tiles';
+import { planTile, type PointWindow, type TilePlan } from './tiles';
+import { TileSource } from './tileSource';
 import { drawTraces } from './traceView';
 import { extentOf, intensityDomain, pointWindowOf } from './viewWindow';
-import { boxZoom, centredOn, clampView, nearestOnScreen, pan, step as stepOrder, zoomAt, type Extent } from './viewModel';
+import { boxZoom, centredOn, clampView, pan, step as stepOrder, zoomAt, type Extent } from './viewModel';
 
 export interface Elements {
   readonly canvas: HTMLCanvasElement;
@@ -33,12 +36,12 @@ export interface SavedState {
   readonly contours?: ContourSettings;
   readonly method?: 'fit' | 'naive';
   readonly dimension?: 'F2' | 'F1';
+  /** The peak whose measurement was shown: measured again (the host has it cached) when the panel comes back. */
+  readonly shownPeak?: number;
 }
 
 /** Budget per animation frame for contouring, ms: leaves most of a 16 ms frame for input. */
 const FRAME_BUDGET_MS = 6;
-/** Clicks farther than this from every peak select nothing, CSS px. */
-const SNAP_PX = 24;
 
 export class Panel {
   readonly meta: InitMessage['spectrum'];
@@ -50,9 +53,8 @@ export class Panel {
   sidecar: SidecarView;
   view: View;
   selected: number | null;
-  measurement: MeasurementView | null = null;
-  /** The peak whose last measurement failed: Accept then records a bare pick (labels only). */
-  failedPeak: number | null = null;
+  /** The measurement shown and what Accept sends (replies to older requests are dropped). */
+  readonly measured = new MeasureState();
   box: Frame['box'] = null;
   /** Changes since another revision (the compare overlay); main.ts lists them beside the plot. */
   review: ReviewState = NO_REVIEW;
@@ -60,10 +62,7 @@ export class Panel {
   /** 1D: fit the intensity axis to the visible data when the next tile arrives (after F2 zooms). */
   autoY = true;
   readonly extent: Extent;
-  private readonly cache = new ContourCache();
-  private magnitudes: readonly number[] = [];
-  private levelsKey = '';
-  private inflight: string | null = null;
+  private readonly tiles: TileSource;
   private layout: Layout = layoutFor({ width: 300, height: 200 }, 1);
   private palette: Palette;
   private frameQueued = false;
@@ -82,7 +81,16 @@ export class Panel {
     this.view = clampView(saved.view ?? { x: this.extent.x, y: this.extent.y }, this.extent);
     this.selected = saved.selected ?? null;
     this.palette = readPalette();
+    this.tiles = new TileSource(rpc, this.meta.dims === 2, {
+      // 1D: the intensity axis follows the data after an F2 zoom.
+      arrived: (e) => {
+        if (this.meta.dims === 1 && this.autoY) this.fitIntensity(e);
+      },
+      failed: (message) => this.status(message),
+      settled: () => this.redraw(),
+    });
     this.setContours(this.contours);
+    if (saved.shownPeak !== undefined && saved.shownPeak === this.selected) this.measure();
   }
 
   dispose(): void {
@@ -90,14 +98,14 @@ export class Panel {
   }
 
   persist(): void {
-    this.save({ view: this.view, selected: this.selected, contours: this.contours, method: this.method, dimension: this.dimension });
+    const shownPeak = this.measured.shown?.peakIndex;
+    this.save({ view: this.view, selected: this.selected, contours: this.contours, method: this.method, dimension: this.dimension, ...(shownPeak !== undefined && { shownPeak }) });
   }
 
   setContours(c: ContourSettings): void {
     this.contours = c;
     const levels = contourLevels(levelUnit(this.meta), c);
-    this.magnitudes = levels.magnitudes;
-    this.levelsKey = levelsKey(levels);
+    this.tiles.setLevels(levels.magnitudes, levelsKey(levels));
     this.persist();
     this.redraw();
   }
@@ -166,41 +174,11 @@ export class Panel {
     return planTile(this.pointWindow(), { rows: m.f1?.points ?? 1, cols: m.f2.points }, this.layout.plot);
   }
 
-  private requestTile(plan: TilePlan): void {
-    if (this.inflight !== null) return; // one at a time: the reply's frame asks again for the latest view
-    this.inflight = plan.key;
-    const req = this.rpc.requests.send(this.rpc.post, (id) => ({ type: 'requestTile', id, region: plan.region, maxRows: plan.maxRows, maxCols: plan.maxCols }));
-    req.promise.then(
-      (t) => {
-        if (t.type !== 'tile') return this.status(`Unexpected reply "${t.type}" to a tile request.`);
-        // A 1D tile is drawn as a line: no contour levels to compute.
-        const e = this.cache.put(plan, { rows: t.rows, cols: t.cols, data: t.data }, this.meta.dims === 2 ? this.magnitudes : [], this.levelsKey);
-        if (this.meta.dims === 1 && this.autoY) this.fitIntensity(e);
-      },
-      (e: unknown) => this.status(`Could not load the spectrum region: ${e instanceof Error ? e.message : String(e)}`),
-    ).finally(() => {
-      this.inflight = null;
-      this.redraw();
-    });
-  }
-
-  /** The tiles to draw: the one for this view, plus the newest finished one while it is incomplete. */
-  private tilesFor(plan: TilePlan, win: PointWindow): CacheEntry[] {
-    const current = this.cache.get(plan.key);
-    if (current && this.meta.dims === 2) setLevels(current, this.magnitudes, this.levelsKey);
-    const out: CacheEntry[] = current ? [current] : [];
-    if (!current || current.queue.length > 0) {
-      const stale = this.cache.recent().find((e) => e !== current && e.levelsKey === this.levelsKey && e.queue.length === 0 && (covers(e.plan.region, win) || !current));
-      if (stale) out.push(stale);
-    }
-    return out;
-  }
-
   private frame(): void {
     const plan = this.plan();
     const win = this.pointWindow();
-    if (!this.cache.get(plan.key) && this.inflight !== plan.key) this.requestTile(plan);
-    const tiles = this.tilesFor(plan, win);
+    this.tiles.ensure(plan);
+    const tiles = this.tiles.tilesFor(plan, win);
     const current = tiles[0]?.plan.key === plan.key ? tiles[0] : undefined;
     if (current && this.meta.dims === 1 && this.autoY) this.fitIntensity(current);
     const more = current ? step(current, FRAME_BUDGET_MS, () => performance.now()) : false;
@@ -213,23 +191,14 @@ export class Panel {
     return { meta: this.meta, view: this.view, tiles, levelCount: this.contours.levels, peaks: this.peaks, picks: this.sidecar.picks, selected: this.selected, box: this.box, marks: this.review.marks, markFocus: this.review.current };
   }
 
-  /** Peak nearest a canvas point (CSS px), in screen distance; 1D compares positions along F2 only. */
+  /** Peak nearest a canvas point (CSS px), in screen distance. */
   peakAt(x: number, y: number): number | null {
-    const f = this.frameData([]);
-    const pts = this.peaks.map((k) => ({ index: k.index, ...screenOf(f, this.layout, k.f2Ppm, k.f1Ppm) }));
-    return nearestOnScreen(this.meta.dims === 2 ? pts : pts.map((p) => ({ ...p, y })), x, y, SNAP_PX);
+    return peakAt(this.frameData([]), this.layout, x, y);
   }
 
-  /** The sidecar pick drawn on a peak (within a few pixels), if any. */
+  /** The sidecar pick drawn on a peak, if any. */
   pickFor(peakIndex: number | null): PickView | undefined {
-    const k = this.peaks.find((p) => p.index === peakIndex);
-    if (!k) return undefined;
-    const f = this.frameData([]);
-    const at = screenOf(f, this.layout, k.f2Ppm, k.f1Ppm);
-    return this.sidecar.picks.find((p) => {
-      const s = screenOf(f, this.layout, p.f2Ppm, p.f1Ppm);
-      return Math.hypot(s.x - at.x, s.y - at.y) <= 6;
-    });
+    return pickOn(this.frameData([]), this.layout, peakIndex);
   }
 
   select(index: number | null): void {
@@ -242,18 +211,18 @@ export class Panel {
     const idx = this.selected;
     if (idx === null) return this.status('Select a peak first (click near it, or N / P).');
     this.status('Measuring…');
+    const token = this.measured.started();
     const req = this.rpc.requests.send(this.rpc.post, (id) => ({ type: 'measure', id, peakIndex: idx, method: this.method, dimension: this.dimension }));
     req.promise.then(
       (m) => {
         if (m.type !== 'measured') return this.status(`Unexpected reply "${m.type}" to a measurement.`);
-        this.measurement = m.measurement;
-        this.failedPeak = null;
+        if (!this.measured.measured(token, m.measurement)) return;
         this.status('');
         this.showTrace();
+        this.persist();
       },
       (e: unknown) => {
-        this.failedPeak = idx;
-        this.status(`Measurement failed: ${e instanceof Error ? e.message : String(e)} (Accept records the pick without J)`);
+        if (this.measured.failed(token, idx)) this.status(`Measurement failed: ${e instanceof Error ? e.message : String(e)} (Accept records the pick without J)`);
       },
     );
   }
@@ -267,27 +236,17 @@ export class Panel {
   }
 
   showTrace(): void {
-    if (!this.measurement) return;
+    const m = this.measured.shown;
+    if (!m || this.disposed) return;
     this.el.trace.hidden = false;
-    drawTraces(this.el.traceCanvas, this.el.traceText, this.measurement, this.settings.jDecimals, this.palette);
+    drawTraces(this.el.traceCanvas, this.el.traceText, m, this.settings.jDecimals, this.palette);
   }
 
   accept(labels: readonly string[]): void {
     if (this.sidecar.blocked) return this.status(`Sidecar not editable: ${this.sidecar.blocked}`);
-    if (this.meta.dims === 1) {
-      // 1D: a multiplet is picked and labelled; there is no antiphase J to measure.
-      if (this.selected === null) return this.status('Select a multiplet first (click near it, or N / P).');
-      this.rpc.post({ type: 'accept', peakIndex: this.selected, method: this.method, dimension: 'F2', labels });
-      return this.status(`Picked multiplet ${this.selected}${labels.length ? ` as ${labels.join(', ')}` : ''}.`);
-    }
-    const m = this.measurement;
-    if ((!m || m.peakIndex !== this.selected) && this.selected !== null && this.failedPeak === this.selected) {
-      this.rpc.post({ type: 'accept', peakIndex: this.selected, method: this.method, dimension: this.dimension, labels });
-      return this.status('Recording the pick without J (its measurement failed).');
-    }
-    if (!m || m.peakIndex !== this.selected) return this.status('Measure the selected peak before accepting.');
-    this.rpc.post({ type: 'accept', peakIndex: m.peakIndex, method: m.method, dimension: m.dimension, labels });
-    this.status(`Accepted J = ${m.jHz.toFixed(this.settings.jDecimals)} Hz.`);
+    const c = this.measured.accept(this.selected, labels, this.meta.dims, this.method, this.dimension, this.settings.jDecimals);
+    if (c.request) this.rpc.post(c.request);
+    this.status(c.status);
   }
 
   setReview(m: CompareMessage): void {
@@ -297,16 +256,17 @@ export class Panel {
     this.redraw();
   }
 
+  /** Centres the view on a place with the given spans; 1D keeps its intensity axis. */
+  private centreOn(f2Ppm: number, f1Ppm: number | undefined, sx: number, sy: number): void {
+    const c = centredOn(this.extent, f2Ppm, f1Ppm ?? (this.view.y[0] + this.view.y[1]) / 2, sx, sy);
+    this.setView(this.meta.f1 ? c : { x: c.x, y: this.view.y });
+  }
+
   /** Focus a change (keyboard or list): centre the view on it, keeping the zoom. */
   focusChange(index: number | null): void {
     this.review = { ...this.review, current: index };
     const m = index === null ? undefined : this.review.marks[index];
-    if (m?.f2Ppm !== undefined) {
-      const sx = Math.abs(this.view.x[0] - this.view.x[1]);
-      const sy = Math.abs(this.view.y[0] - this.view.y[1]);
-      const c = centredOn(this.extent, m.f2Ppm, m.f1Ppm ?? (this.view.y[0] + this.view.y[1]) / 2, sx, sy);
-      this.setView(this.meta.f1 ? c : { x: c.x, y: this.view.y });
-    }
+    if (m?.f2Ppm !== undefined) this.centreOn(m.f2Ppm, m.f1Ppm, Math.abs(this.view.x[0] - this.view.x[1]), Math.abs(this.view.y[0] - this.view.y[1]));
     this.status(changeStatus(this.review));
     this.onReview?.(this.review);
     this.redraw();
@@ -328,8 +288,7 @@ export class Panel {
         if (!k) return this.status('Select a peak first.');
         const sx = Math.max(Math.abs(k.extent.f2FromPpm - k.extent.f2ToPpm) * 3, this.extent.minSpanX * 4);
         const sy = this.meta.f1 ? Math.max(Math.abs((k.extent.f1FromPpm ?? 0) - (k.extent.f1ToPpm ?? 0)) * 3, this.extent.minSpanY * 4) : Math.abs(this.view.y[0] - this.view.y[1]);
-        const c = centredOn(this.extent, k.f2Ppm, k.f1Ppm ?? (this.view.y[0] + this.view.y[1]) / 2, sx, sy);
-        return this.setView(this.meta.f1 ? c : { x: c.x, y: this.view.y });
+        return this.centreOn(k.f2Ppm, k.f1Ppm, sx, sy);
       }
       case 'measure': return this.measure();
       case 'nextChange': case 'previousChange': return this.focusChange(stepChange(this.review, a.kind === 'nextChange' ? 1 : -1));
