@@ -29,6 +29,8 @@ const TEX_SYMBOLS: Readonly<Record<string, string>> = {
 export function texText(s: string): string {
   return s
     .replace(/[\\{}$&#^_%~]/g, (c) => (c === '\\' ? '\\textbackslash{}' : c === '^' ? '\\textasciicircum{}' : c === '~' ? '\\textasciitilde{}' : `\\${c}`))
+    .replace(/\bJ\b/g, '\\textit{J}') // the coupling constant is set in italics, as in the SI line
+    .replace(/"([^"]*)"/g, "``$1''")
     .replace(/[±°−–—φσξ³Δχ≈’]/g, (c) => TEX_SYMBOLS[c] ?? c);
 }
 

@@ -6,7 +6,7 @@ import type { Coupling } from '../../../src/core/sidecar/types';
 import { HUGGINS_DELTA_CHI, KARPLUS_CAUTION, haasnoot, karplus1959, karplus1963 } from '../../../src/core/report/karplus';
 import type { AngleInterval } from '../../../src/core/report/karplusInverse';
 import { karplusEstimates, type KarplusEstimate, type RelationAngles } from '../../../src/core/report/karplusReport';
-import { degText, intervalText, karplusJson, karplusMarkdown, karplusTex } from '../../../src/core/report/karplusFormat';
+import { degText, intervalText, karplusJson, karplusMarkdown, karplusTex, texText } from '../../../src/core/report/karplusFormat';
 
 const HASH = 'ab'.repeat(32);
 const C = HUGGINS_DELTA_CHI.C ?? 0;
@@ -148,6 +148,12 @@ describe('karplus text and JSON', () => {
     expect(tex).toContain('fit\\_poor');
     expect(tex).not.toMatch(/[^\x20-\x7e\n]/);
     expect(karplusMarkdown([])).toBe('');
+  });
+
+  it('LaTeX text: special characters escaped, J in italics, quotes and symbols as commands', () => {
+    expect(texText('fit_poor & 50% of {x} "exact" J ± 2σ at −60°')).toBe(
+      "fit\\_poor \\& 50\\% of \\{x\\} ``exact'' \\textit{J} $\\pm$ 2$\\sigma$ at $-$60$^{\\circ}$");
+    expect(texText('a\\b')).toBe('a\\textbackslash{}b');
   });
 
   it('json: one entry per pair and relation, stable snake_case keys, angles to 0.1°', () => {
