@@ -84,6 +84,13 @@ function anglesWith(rel: KarplusRelation, subs: readonly KarplusSubstituent[], j
   return { relation: inv.relation, source: inv.source, substituents: subs, intervals: inv.intervals, notes };
 }
 
+function notMeasured(pair: readonly [string, string], net: CouplingNetwork): string {
+  const unknown = pair.filter((l) => !net.atoms.includes(l));
+  // A label no sidecar knows is most often a typo in the request.
+  const why = unknown.length > 0 ? ` (${unknown.join(' and ')} appear${unknown.length === 1 ? 's' : ''} in no sidecar: check the label)` : '';
+  return `J(${pair[0]}, ${pair[1]}) is not measured in this compound's sidecars${why}: no angle can be estimated.`;
+}
+
 /** One estimate per request, in the note's order. */
 export function karplusEstimates(requests: readonly KarplusRequest[], net: CouplingNetwork): KarplusEstimate[] {
   return requests.map((r) => {
@@ -92,7 +99,7 @@ export function karplusEstimates(requests: readonly KarplusRequest[], net: Coupl
     if (!p) {
       return {
         ...base, jHz: null, sdHz: null, method: null, flags: [], relations: [],
-        notes: [`J(${r.pair[0]}, ${r.pair[1]}) is not measured in this compound's sidecars: no angle can be estimated.`],
+        notes: [notMeasured(r.pair, net)],
       };
     }
     const j = Math.abs(p.adopted.jHz);

@@ -10,7 +10,7 @@ import type { KarplusEstimate } from '../../core/report/karplusReport';
 export function karplusHoverLines(label: string, estimates: readonly KarplusEstimate[]): string[] {
   const mine = estimates.filter((e) => e.pair.includes(label));
   if (mine.length === 0) return [];
-  const lines = ['', '**Dihedral estimates (Karplus)**, φ within J ± 2σ:'];
+  const lines = ['', `**Dihedral estimates (Karplus)**, φ within J ± ${mine[0]?.k ?? 2}σ:`];
   for (const e of mine) {
     lines.push('', `*${e.pair[0]}/${e.pair[1]}*: ${jText(e)}`);
     lines.push(...e.relations.map((r) => `- ${relationLine(r)}`));

@@ -115,6 +115,7 @@ describe('karplusEstimates: the adopted J of a requested pair, inverted through 
     expect(e?.jHz).toBeNull();
     expect(e?.relations).toEqual([]);
     expect(e?.notes[0]).toMatch(/J\(H-4, H-5a\) is not measured/);
+    expect(e?.notes[0]).toMatch(/H-4 and H-5a appear in no sidecar: check the label/);
   });
 
   it('a negative J (a geminal value?) is used as a magnitude and questioned', () => {
