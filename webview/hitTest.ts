@@ -3,7 +3,7 @@
  * ppm. Pure given the frame's geometry, so it is tested in Node. Split from panel.ts.
  */
 import type { PickView } from '../src/protocol';
-import { screenOf, type Frame, type Layout } from './plot';
+import { screenOf, type Frame, type Layout } from './frame';
 import { nearestOnScreen } from './viewModel';
 
 /** Clicks farther than this from every peak select nothing, CSS px. */

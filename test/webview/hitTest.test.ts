@@ -6,7 +6,7 @@
 import { describe, expect, it } from 'vitest';
 import type { PeakView, PickView, SpectrumMeta } from '../../src/protocol';
 import { peakAt, pickOn, SNAP_PX } from '../../webview/hitTest';
-import { layoutFor, type Frame } from '../../webview/plot';
+import { layoutFor, type Frame } from '../../webview/frame';
 
 const axis = { points: 1001, firstHz: 3000, lastHz: 1800, observeMhz: 600 };
 const meta2: SpectrumMeta = { fileName: 'cosy.jdx', title: '', dims: 2, f1: axis, f2: axis, noise: 1, min: -1, max: 1 };
