@@ -163,7 +163,7 @@ export interface ErrorMessage {
 /** A command from the palette or a keybinding that the panel carries out (next peak, zoom...). */
 export interface CommandMessage {
   readonly type: 'command';
-  readonly command: 'nextPeak' | 'previousPeak' | 'measure' | 'accept' | 'label' | 'zoomToPeak' | 'resetZoom';
+  readonly command: 'nextPeak' | 'previousPeak' | 'measure' | 'accept' | 'label' | 'removePick' | 'zoomToPeak' | 'resetZoom';
 }
 
 /** The user changed a `couplet.*` setting while the panel is open: the new values replace init's. */
@@ -309,7 +309,7 @@ export function parseFromWebview(raw: unknown): Parsed<FromWebview> {
 }
 
 /** Every panel command once (the Record makes the compiler ask for a new one). */
-const PANEL_COMMANDS: Readonly<Record<CommandMessage['command'], true>> = { nextPeak: true, previousPeak: true, measure: true, accept: true, label: true, zoomToPeak: true, resetZoom: true };
+const PANEL_COMMANDS: Readonly<Record<CommandMessage['command'], true>> = { nextPeak: true, previousPeak: true, measure: true, accept: true, label: true, removePick: true, zoomToPeak: true, resetZoom: true };
 
 const TO_WEBVIEW: Record<ToWebview['type'], (m: Obj) => string | null> = {
   init: (m) => (!isSpectrumMeta(m.spectrum) ? 'spectrum' : !isViewSettings(m.settings) ? 'settings' : !(Array.isArray(m.peaks) && m.peaks.every(isPeakView)) ? 'peaks'

@@ -128,6 +128,7 @@ function onMessage(m: ToWebview): void {
       const a = commandAction(m.command);
       if (a.kind === 'label') return labelKey(p, toolbar);
       if (a.kind === 'accept') return acceptKey(p, toolbar);
+      if (a.kind === 'removePick') return removePick(p);
       return p.act(a);
     }
   }

@@ -9,7 +9,7 @@ import { readSettings } from './settings';
 import { VIEW_TYPE, type OpenPanel, type SpectrumEditorProvider } from './spectrumEditor';
 import { nearestPeakIndex } from './spectrumModel';
 
-const PANEL_COMMANDS: readonly CommandMessage['command'][] = ['nextPeak', 'previousPeak', 'measure', 'accept', 'label', 'zoomToPeak', 'resetZoom'];
+const PANEL_COMMANDS: readonly CommandMessage['command'][] = ['nextPeak', 'previousPeak', 'measure', 'accept', 'label', 'removePick', 'zoomToPeak', 'resetZoom'];
 const SPECTRUM_FILE = /\.(jdx|dx|jcamp)$/i;
 
 /** Arguments of the hidden `couplet.acceptAt` command (for in-host tests and scripts). */

@@ -96,9 +96,15 @@ describe('editor contributions', () => {
   it('has every contributed command registered by the code, and no registered command left undeclared', () => {
     const declared = pkg.contributes.commands.map((c) => c.command).sort();
     const code = source('commands.ts') + source('notes/insertSiCommand.ts');
-    const panel = [...code.matchAll(/'(nextPeak|previousPeak|measure|accept|label|zoomToPeak|resetZoom)'/g)].map((m) => `couplet.${m[1]}`);
+    const panel = [...code.matchAll(/'(nextPeak|previousPeak|measure|accept|label|removePick|zoomToPeak|resetZoom)'/g)].map((m) => `couplet.${m[1]}`);
     const direct = [...code.matchAll(/registerCommand\('(couplet\.\w+)'/g)].map((m) => m[1]);
     expect([...new Set([...panel, ...direct])].sort()).toEqual(declared);
+  });
+
+  it('offers a command for every pick action of the plot: removing a pick (Delete there) too', () => {
+    const declared = pkg.contributes.commands.map((c) => c.command);
+    for (const c of ['measure', 'accept', 'label', 'removePick']) expect(declared).toContain(`couplet.${c}`);
+    expect(pkg.contributes.menus.commandPalette?.find((m) => m.command === 'couplet.removePick')?.when).toBe('activeCustomEditorId == couplet.spectrum');
   });
 
   it('scopes every keybinding to the spectrum editor', () => {
