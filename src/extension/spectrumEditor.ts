@@ -4,6 +4,7 @@
  * edit stack, so undo/redo, the dirty marker, save, revert and hot exit behave as usual.
  */
 import * as vscode from 'vscode';
+import { textToRestore } from './backupText';
 import { publish } from './diagnostics';
 import { writeUndoable } from './editHistory';
 import type { WorkerLike } from './fitClient';
@@ -65,8 +66,10 @@ export class SpectrumEditorProvider implements vscode.CustomEditorProvider<Spect
   /** Hot exit: the unsaved sidecar text comes back (unless VS Code already restored the document itself). */
   private async restoreBackup(doc: SpectrumDocument, backup: vscode.Uri): Promise<void> {
     try {
-      const text = new TextDecoder('utf-8').decode(await vscode.workspace.fs.readFile(backup));
-      if (text !== (doc.store.text() ?? '')) await doc.store.write(text, 'Restore unsaved changes');
+      const text = textToRestore(new TextDecoder('utf-8').decode(await vscode.workspace.fs.readFile(backup)), doc.store.text());
+      if (text !== null && !(await doc.store.write(text, 'Restore unsaved changes'))) {
+        this.output.appendLine(`could not restore the backup of ${doc.store.fileName}: VS Code did not apply the change`);
+      }
     } catch (e) {
       this.output.appendLine(`could not restore the backup of ${doc.store.fileName}: ${String(e)}`);
     }
