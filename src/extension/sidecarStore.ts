@@ -78,8 +78,9 @@ export class VsSidecarStore implements SidecarStore, vscode.Disposable {
     const edit = new vscode.WorkspaceEdit();
     const meta: vscode.WorkspaceEditEntryMetadata = { label, needsConfirmation: false };
     if (this.cached === null) {
-      // First pick: the file is created and filled in one undoable edit.
-      edit.createFile(this.uri, { ignoreIfExists: true }, meta);
+      // First pick: the file is created and filled in one undoable edit. If a file appeared
+      // meanwhile (a checkout before its watcher event), the edit fails rather than insert into it.
+      edit.createFile(this.uri, { ignoreIfExists: false, overwrite: false }, meta);
       edit.insert(this.uri, new vscode.Position(0, 0), after, meta);
     } else {
       const doc = await vscode.workspace.openTextDocument(this.uri);
