@@ -3,10 +3,12 @@
  * first-order splitting tree (splittingTree.ts), a check against COSY J values of known partners,
  * and second-order warnings that replace the first-order J instead of reporting a wrong one.
  */
-import { ppmToPoint, pointToHz, pointToPpm, resolutionHz } from '../spectrum/axis';
+import { hzPerPoint, hzToPoint, ppmToPoint, pointToHz, pointToPpm, resolutionHz } from '../spectrum/axis';
 import { estimateNoise } from '../spectrum/noise';
 import type { Spectrum1D } from '../spectrum/spectrum';
 import { lorentzianPeak } from '../peaks/interpolate';
+import type { LineshapeFit } from './multipletFit';
+import { analyseLineshape } from './multipletLineshape';
 import { fitSplittingTree, type TreeFit, type TreeGroup, type TreeOptions } from './splittingTree';
 
 export type MultipletFlag = 'second-order' | 'roofing' | 'not-first-order' | 'cosy-disagrees';
@@ -17,6 +19,8 @@ export interface KnownPartner {
   ppm: number;
   jHz?: number;
   sdHz?: number;
+  /** Equivalent protons of the partner (a CH3 splits by 3 equal J; default 1). */
+  count?: number;
 }
 
 export interface MultipletOptions {
@@ -30,6 +34,8 @@ export interface MultipletOptions {
   reference?: { integral: number; protons: number };
   partners?: KnownPartner[];
   tree?: TreeOptions;
+  /** Fit the lineshape as a first-order tree (default true); false keeps the maxima-only analysis. */
+  lineshape?: boolean;
 }
 
 export interface CosyCheck {
@@ -54,9 +60,14 @@ export interface MultipletAnalysis {
   lines: { hz: number; ppm: number; height: number }[];
   /** Full width at half height of the tallest line, Hz. */
   linewidthHz: number;
-  /** The best first-order tree, kept for inspection even when flagged. */
+  /** The best first-order tree for the line maxima alone, kept for inspection even when flagged. */
   tree: TreeFit | null;
-  /** What may be reported: the tree's groups, or [] when a flag says the first-order J would be wrong. */
+  /** The lineshape fit of the best first-order tree (one J per modelled coupling), kept even when flagged. */
+  fit: LineshapeFit | null;
+  /**
+   * What may be reported: the lineshape fit's couplings with near-equal J as one group (else the
+   * maxima tree's groups), or [] when a flag says the first-order J would be wrong.
+   */
   couplings: TreeGroup[];
   multiplicity: string;
   flags: MultipletFlag[];
@@ -69,6 +80,12 @@ const ROOF_ASYMMETRY = 0.1;
 /** Largest acceptable relative intensity misfit of a first-order tree (clean simulated multiplets: below 0.05; the AB quartet at Δν/J = 2 against a dd: 0.45). */
 const MAX_INTENSITY_RMS = 0.15;
 const SECOND_ORDER_RATIO = 10;
+/** Maxima above this many noise sd seed the lineshape fit (8 for the reported lines). */
+const SEED_LEVEL_NOISE = 4;
+/** A lineshape misfit is flagged when χ²_red exceeds this ... */
+const MAX_CHI2_REDUCED = 2;
+/** ... and the misfit beyond noise exceeds this fraction of the tallest line (rms over the region). */
+const MAX_EXCESS_MISFIT = 0.01;
 /** A line must rise above its surroundings by this many noise sd ... */
 const PROMINENCE_NOISE = 4;
 /** ... and by this fraction of its own height (two equal Lorentzians w/√3 apart, the limit of resolution, dip 0 %; 0.7 w apart, 5 %). */
@@ -111,7 +128,7 @@ function fall(d: Float64Array, i: number, step: 1 | -1, i0: number, i1: number):
  * tails between two lines makes tiny maxima, so a line must also rise by prominence above the
  * lowest point on each side before a higher one.
  */
-function pickLines(s: Spectrum1D, i0: number, i1: number, level: number, noise: number): MultipletAnalysis['lines'] {
+function pickLines(s: Spectrum1D, i0: number, i1: number, level: number, noise: number, prominenceNoise = PROMINENCE_NOISE): MultipletAnalysis['lines'] {
   const d = s.data;
   const out: MultipletAnalysis['lines'] = [];
   for (let i = i0; i <= i1; i++) {
@@ -119,7 +136,7 @@ function pickLines(s: Spectrum1D, i0: number, i1: number, level: number, noise: 
     const l = d[i - 1] ?? 0;
     const r = d[i + 1] ?? 0;
     if (!(v > level && v > l && v >= r)) continue;
-    const prominence = Math.max(PROMINENCE_NOISE * noise, PROMINENCE_FRACTION * v);
+    const prominence = Math.max(prominenceNoise * noise, PROMINENCE_FRACTION * v);
     if (Math.min(fall(d, i, -1, i0, i1), fall(d, i, 1, i0, i1)) < prominence) continue;
     const { offset, height } = lorentzianPeak(l, v, r);
     out.push({ hz: pointToHz(s.axis, i + offset), ppm: pointToPpm(s.axis, i + offset), height });
@@ -157,7 +174,7 @@ export function analyseMultiplet(s: Spectrum1D, fromPpm: number, toPpm: number, 
   if (!tallest) {
     const mid = (fromPpm + toPpm) / 2;
     return {
-      ...base, centreHz: mid * s.axis.observeMhz, centrePpm: mid, linewidthHz: 0, tree: null, couplings: [], multiplicity: 'm',
+      ...base, centreHz: mid * s.axis.observeMhz, centrePpm: mid, linewidthHz: 0, tree: null, fit: null, couplings: [], multiplicity: 'm',
       flags: ['not-first-order'], notes: [`no line above ${level.toExponential(2)} (noise ${noise.toExponential(2)}) in the region`], cosy: [],
     };
   }
@@ -168,17 +185,41 @@ export function analyseMultiplet(s: Spectrum1D, fromPpm: number, toPpm: number, 
     positionTolHz: Math.max(0.05, resolutionHz(s.axis) / 4),
     ...opts.tree,
   });
+  const partners = opts.partners ?? [];
+  // Weaker maxima (4 noise sd, prominence 2 sd) only seed the lineshape fit, which decides whether they are lines.
+  const weak = pickLines(s, i0, i1, Math.max(SEED_LEVEL_NOISE * noise, 0.02 * top), noise, SEED_LEVEL_NOISE / 2);
+  const shape = opts.lineshape === false ? null : analyseLineshape(s, {
+    i0, i1, noise, lines, weakLines: weak.map((l) => l.hz), linewidthHz, maximaTree: tree,
+    partners: partners.filter((p) => p.jHz !== undefined).map((p) => ({ jHz: Math.abs(p.jHz ?? 0), count: p.count ?? 1 })),
+  });
   const w = lines.reduce((a, l) => a + l.height, 0);
-  const centreHz = tree ? tree.centreHz : lines.reduce((a, l) => a + l.hz * l.height, 0) / w;
+  const centreHz = shape ? shape.fit.centreHz : tree ? tree.centreHz : lines.reduce((a, l) => a + l.hz * l.height, 0) / w;
   const flags: MultipletFlag[] = [];
   const notes: string[] = [];
-  judgeTree(tree, lines, flags, notes);
-  const cosy = checkPartners(centreHz / s.axis.observeMhz, s.axis.observeMhz, tree, opts.partners ?? [], flags, notes);
-  const reportable = tree !== null && !flags.some((f) => f === 'second-order' || f === 'not-first-order');
+  if (shape) judgeFit(shape.fit, shape.multiplicity, flags, notes);
+  else judgeTree(tree, lines, flags, notes);
+  judgeRoofing(lines, shape ? areaAsymmetry(s, i0, shape.fit) : null, flags, notes);
+  const resolved = shape ? shape.fit.groups : tree?.groups ?? [];
+  const cosy = checkPartners(centreHz / s.axis.observeMhz, s.axis.observeMhz, resolved, partners, flags, notes);
+  const couplings = shape ? shape.couplings : tree?.groups ?? [];
+  const reportable = (shape !== null || tree !== null) && !flags.some((f) => f === 'second-order' || f === 'not-first-order');
+  const multiplicity = shape ? shape.multiplicity : tree?.multiplicity ?? 'm';
   return {
-    ...base, centreHz, centrePpm: centreHz / s.axis.observeMhz, linewidthHz, tree,
-    couplings: reportable ? tree.groups : [], multiplicity: reportable ? tree.multiplicity : 'm', flags, notes, cosy,
+    ...base, centreHz, centrePpm: centreHz / s.axis.observeMhz, linewidthHz: shape ? shape.fit.fwhmHz : linewidthHz, tree,
+    fit: shape?.fit ?? null, couplings: reportable ? couplings : [], multiplicity: reportable ? multiplicity : 'm', flags, notes, cosy,
   };
+}
+
+/**
+ * A lineshape misfit beyond the noise means the data are not one first-order multiplet (second
+ * order, overlap, a baseline artefact): flagged, so that no line spacing is reported as a J.
+ */
+function judgeFit(fit: LineshapeFit, multiplicity: string, flags: MultipletFlag[], notes: string[]): void {
+  if (fit.chi2Reduced > MAX_CHI2_REDUCED && fit.excessMisfit > MAX_EXCESS_MISFIT) {
+    flags.push('not-first-order');
+    notes.push(`the best first-order lineshape (${multiplicity}) misses the data by ${(100 * fit.excessMisfit).toFixed(1)} % of the tallest line ` +
+      `beyond the noise (χ²_red ${fit.chi2Reduced.toFixed(1)}): second-order (strong coupling) or overlap; line spacings need not be couplings, so no J is reported.`);
+  }
 }
 
 function judgeTree(tree: TreeFit | null, lines: MultipletAnalysis['lines'], flags: MultipletFlag[], notes: string[]): void {
@@ -192,11 +233,14 @@ function judgeTree(tree: TreeFit | null, lines: MultipletAnalysis['lines'], flag
     notes.push(`the best first-order tree (${tree.multiplicity}) misses the binomial intensities by ${(100 * tree.intensityRms).toFixed(0)} % rms: ` +
       'second-order (strong coupling) or overlap; line spacings need not be couplings, so no J is reported.');
   }
+}
+
+function judgeRoofing(lines: MultipletAnalysis['lines'], asymmetry: number | null, flags: MultipletFlag[], notes: string[]): void {
   // Binomial patterns are symmetric: heights leaning to one side are the roof effect of a strongly coupled partner.
   const hs = [...lines].sort((a, b) => b.hz - a.hz).map((l) => l.height);
   const n = Math.floor(hs.length / 2);
   const total = hs.reduce((a, h) => a + h, 0);
-  const asym = (hs.slice(0, n).reduce((a, h) => a + h, 0) - hs.slice(hs.length - n).reduce((a, h) => a + h, 0)) / total;
+  const asym = asymmetry ?? (hs.slice(0, n).reduce((a, h) => a + h, 0) - hs.slice(hs.length - n).reduce((a, h) => a + h, 0)) / total;
   if (Math.abs(asym) > ROOF_ASYMMETRY) {
     flags.push('roofing');
     if (!flags.includes('second-order')) flags.push('second-order');
@@ -205,14 +249,34 @@ function judgeTree(tree: TreeFit | null, lines: MultipletAnalysis['lines'], flag
   }
 }
 
+/**
+ * (area above the centre − area below) / total, the fitted baseline removed, over a window
+ * symmetric about the fitted centre: the lean of the whole multiplet, less noisy than line heights.
+ */
+export function areaAsymmetry(s: Spectrum1D, i0: number, fit: LineshapeFit): number {
+  const c = hzToPoint(s.axis, fit.centreHz) - i0;
+  const m = fit.baseline.length;
+  const half = Math.min(c, m - 1 - c);
+  let hi = 0;
+  let lo = 0;
+  for (let k = 0; k < m; k++) {
+    if (Math.abs(k - c) > half) continue;
+    const v = (s.data[i0 + k] ?? 0) - (fit.baseline[k] ?? 0);
+    // The axis may run either way: point index up means frequency down when hzPerPoint < 0.
+    if ((k - c) * Math.sign(hzPerPoint(s.axis)) > 0) hi += v;
+    else if (k !== c) lo += v;
+  }
+  return hi + lo > 0 ? (hi - lo) / (hi + lo) : 0;
+}
+
 function checkPartners(
-  centrePpm: number, mhz: number, tree: TreeFit | null, partners: readonly KnownPartner[], flags: MultipletFlag[], notes: string[],
+  centrePpm: number, mhz: number, groups: readonly TreeGroup[], partners: readonly KnownPartner[], flags: MultipletFlag[], notes: string[],
 ): CosyCheck[] {
   const checks: CosyCheck[] = [];
   for (const p of partners) {
     const dnu = Math.abs(p.ppm - centrePpm) * mhz;
-    const nearest = p.jHz === undefined || !tree ? undefined
-      : tree.groups.reduce<TreeGroup | undefined>((m, g) => (m && Math.abs(m.jHz - Math.abs(p.jHz ?? 0)) <= Math.abs(g.jHz - Math.abs(p.jHz ?? 0)) ? m : g), undefined);
+    const nearest = p.jHz === undefined ? undefined
+      : groups.reduce<TreeGroup | undefined>((m, g) => (m && Math.abs(m.jHz - Math.abs(p.jHz ?? 0)) <= Math.abs(g.jHz - Math.abs(p.jHz ?? 0)) ? m : g), undefined);
     const j = Math.abs(p.jHz ?? nearest?.jHz ?? 0);
     if (j > 0 && dnu / j < SECOND_ORDER_RATIO) {
       if (!flags.includes('second-order')) flags.push('second-order');

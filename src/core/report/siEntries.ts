@@ -17,7 +17,7 @@ import type { Coupling } from '../sidecar/types';
 import { pickMultiplets1D } from '../peaks/multiplets1D';
 import { naturalCompare } from '../sidecar/decimal';
 import type { Spectrum1D } from '../spectrum/spectrum';
-import { analyseMultiplet, integrateRegion, type MultipletAnalysis } from './multiplet';
+import { analyseMultiplet, integrateRegion, type KnownPartner, type MultipletAnalysis } from './multiplet';
 import type { SiCoupling, SiEntry } from './siLine';
 
 export interface DeriveInput {
@@ -38,6 +38,8 @@ export interface DerivedSignal {
   toPpm: number | null;
   integral: number | null;
   analysis: MultipletAnalysis | null;
+  /** The analysed 1D region (ppm, with tails), when the signal has a 1D multiplet. */
+  region?: [number, number];
 }
 
 export interface DerivedSi {
@@ -115,13 +117,7 @@ function signalsFrom(shifts: Map<string, number>, s: Spectrum1D | undefined): De
     const down = multiplets[i + 1];
     const from = Math.min(m.fromPpm + tail, up ? (up.toPpm + m.fromPpm) / 2 : Infinity);
     const to = Math.max(m.toPpm - tail, down ? (down.fromPpm + m.toPpm) / 2 : -Infinity);
-    let analysis: MultipletAnalysis | null = null;
-    try {
-      analysis = analyseMultiplet(s, from, to);
-    } catch {
-      analysis = null;
-    }
-    out.push({ labels, ppm: m.ppm, fromPpm: m.fromPpm, toPpm: m.toPpm, integral: integrateRegion(s, from, to), analysis });
+    out.push({ labels, ppm: m.ppm, fromPpm: m.fromPpm, toPpm: m.toPpm, integral: integrateRegion(s, from, to), analysis: null, region: [from, to] });
   });
   for (const a of atoms) {
     if (!used.has(a)) out.push({ labels: [a], ppm: shifts.get(a) ?? 0, fromPpm: null, toPpm: null, integral: null, analysis: null });
@@ -148,6 +144,7 @@ export function deriveSiEntries(input: DeriveInput): DerivedSi {
   const protonsOf = (g: DerivedSignal): number => (g.integral !== null && unit !== null ? Math.max(1, Math.round(g.integral / unit)) : g.labels.length);
   const signalOf = new Map<string, DerivedSignal>();
   signals.forEach((g) => g.labels.forEach((l) => signalOf.set(l, g)));
+  if (input.spectrum1D) analyseSignals(input.spectrum1D, signals, input.network, shifts, signalOf, protonsOf);
   const oneD: Coupling[] = [];
   const entries = signals.map((g): SiEntry => {
     const protons = protonsOf(g);
@@ -172,6 +169,39 @@ export function deriveSiEntries(input: DeriveInput): DerivedSi {
 
 const LETTERS = ['', 'd', 't', 'q', 'p'];
 
+/**
+ * The 1D analysis of each signal's region. A one-atom signal passes the atom's coupled partners
+ * (shift, adopted J ± sd, protons of the partner's signal): they seed the lineshape fit, are checked
+ * against the 1D J, and a shift difference / J below 10 to any of them makes the signal second order.
+ */
+function analyseSignals(
+  s: Spectrum1D, signals: DerivedSignal[], net: CouplingNetwork, shifts: Map<string, number>,
+  signalOf: Map<string, DerivedSignal>, protonsOf: (g: DerivedSignal) => number,
+): void {
+  for (const g of signals) {
+    if (!g.region) continue;
+    const atom = g.labels.length === 1 ? g.labels[0] : undefined;
+    const partners: KnownPartner[] = atom === undefined ? [] : net.pairs.filter((p) => p.atoms.includes(atom)).flatMap((p) => {
+      const label = p.atoms[0] === atom ? p.atoms[1] : p.atoms[0];
+      const ppm = shifts.get(label);
+      const pg = signalOf.get(label);
+      const count = pg && pg.labels.length === 1 ? protonsOf(pg) : 1;
+      return ppm === undefined ? [] : [{ label, ppm, jHz: p.adopted.jHz, sdHz: p.adopted.sdHz, count }];
+    });
+    try {
+      // Several atoms in one multiplet are written as m anyway: the lineshape search would only cost time.
+      g.analysis = analyseMultiplet(s, g.region[0], g.region[1], { partners, lineshape: atom !== undefined });
+    } catch {
+      g.analysis = null;
+    }
+  }
+}
+
+/** Flags that make the 1D splittings unfit to report ('cosy-disagrees' is handled by the notes below). */
+function blocks(a: MultipletAnalysis): boolean {
+  return a.flags.some((f) => f !== 'cosy-disagrees') || a.multiplicity === 'm';
+}
+
 function lettersOf(cs: readonly SiCoupling[]): string {
   return cs.filter((c) => !(c.flags ?? []).includes('unresolved')).map((c) => LETTERS[c.count ?? 1] ?? '?').join('') || 's';
 }
@@ -185,7 +215,7 @@ function lettersOf(cs: readonly SiCoupling[]): string {
 function collectOneD(g: DerivedSignal, recorded: SiCoupling[], out: Coupling[]): void {
   const a = g.analysis;
   const label = g.labels[0];
-  if (g.labels.length !== 1 || label === undefined || !a || a.flags.length > 0 || a.tree === null) return;
+  if (g.labels.length !== 1 || label === undefined || !a || blocks(a)) return;
   const resolved = recorded.filter((c) => !(c.flags ?? []).includes('unresolved'));
   if (a.multiplicity !== lettersOf(recorded)) return;
   resolved.forEach((c, i) => {
@@ -198,7 +228,7 @@ function collectOneD(g: DerivedSignal, recorded: SiCoupling[], out: Coupling[]):
 
 function observed(g: DerivedSignal, recorded: SiCoupling[], notes: string[]): SiCoupling[] {
   const a = g.analysis;
-  if (g.labels.length !== 1 || !a || a.flags.length > 0 || a.tree === null) return recorded;
+  if (g.labels.length !== 1 || !a || blocks(a)) return recorded;
   const js = a.couplings.map((c) => c.jHz.toFixed(1)).join(', ');
   const label = g.labels[0] ?? '';
   if (a.multiplicity === lettersOf(recorded)) {
