@@ -41,7 +41,12 @@ export class VsSidecarStore implements SidecarStore, vscode.Disposable {
 
   static async open(uri: vscode.Uri): Promise<VsSidecarStore> {
     const store = new VsSidecarStore(uri);
-    await store.readDisk();
+    try {
+      await store.readDisk();
+    } catch (e) {
+      store.dispose(); // its watcher and listeners would otherwise outlive the failed open
+      throw e;
+    }
     return store;
   }
 

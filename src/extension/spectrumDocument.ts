@@ -18,12 +18,14 @@ export class SpectrumDocument implements vscode.CustomDocument {
     readonly store: VsSidecarStore,
     /** Fits for 2D spectra; null for 1D. */
     readonly fits: FitClient | null,
+    private readonly log: (message: string) => void,
   ) {}
 
-  static async open(uri: vscode.Uri, spawn: () => WorkerLike): Promise<SpectrumDocument> {
+  static async open(uri: vscode.Uri, spawn: () => WorkerLike, log: (message: string) => void): Promise<SpectrumDocument> {
     const fileName = uri.path.split('/').pop() ?? uri.path;
-    const store = await VsSidecarStore.open(vscode.Uri.joinPath(uri, '..', sidecarNameFor(fileName)));
+    // The data first: a file that cannot be read must not leave a sidecar watcher behind.
     const bytes = await vscode.workspace.fs.readFile(uri);
+    const store = await VsSidecarStore.open(vscode.Uri.joinPath(uri, '..', sidecarNameFor(fileName)));
     // Hashing here, not in core: core does no I/O and no hashing (design.md, sidecar).
     const sha256 = createHash('sha256').update(bytes).digest('hex');
     // JCAMP-DX is ASCII; latin1 maps each byte to one character, so line numbers stay right in damaged files.
@@ -34,10 +36,10 @@ export class SpectrumDocument implements vscode.CustomDocument {
       const model: SpectrumModel = { fileName, sha256, spectrum: r.spectrum, noise: r.noise, crossPeaks: r.crossPeaks, multiplets: r.multiplets };
       const s = r.spectrum;
       const fits = s.dims === 2 ? new FitClient(spawn, { title: s.title, data: s.data, f1: s.f1, f2: s.f2, ...(s.processing && { processing: s.processing }) }) : null;
-      return new SpectrumDocument(uri, model, null, store, fits);
+      return new SpectrumDocument(uri, model, null, store, fits, log);
     } catch (e) {
       const message = e instanceof Error ? e.message : String(e);
-      return new SpectrumDocument(uri, null, message.includes(fileName) ? message : `${fileName}: ${message}`, store, null);
+      return new SpectrumDocument(uri, null, message.includes(fileName) ? message : `${fileName}: ${message}`, store, null, log);
     } finally {
       loader.dispose();
     }
@@ -53,6 +55,8 @@ export class SpectrumDocument implements vscode.CustomDocument {
     for (const f of this.disposeListeners) f();
     this.fits?.dispose();
     const store = this.store;
-    void store.discardUnseenChanges().finally(() => store.dispose());
+    void store.discardUnseenChanges()
+      .catch((e: unknown) => this.log(`${store.fileName}: unsaved changes nobody sees were kept (not reverted): ${e instanceof Error ? e.message : String(e)}`))
+      .finally(() => store.dispose());
   }
 }

@@ -50,7 +50,7 @@ export class SpectrumEditorProvider implements vscode.CustomEditorProvider<Spect
   }
 
   async openCustomDocument(uri: vscode.Uri, context: vscode.CustomDocumentOpenContext): Promise<SpectrumDocument> {
-    const doc = await SpectrumDocument.open(uri, this.spawn);
+    const doc = await SpectrumDocument.open(uri, this.spawn, (m) => this.output.appendLine(m));
     if (doc.loadError) void vscode.window.showErrorMessage(`Couplet: ${doc.loadError}`);
     const refresh = (): void => {
       if (doc.model) publish(this.diagnostics, doc.store.uri, sidecarState(doc.store.text(), doc.store.fileName, doc.model.sha256).diagnostics);
