@@ -96,7 +96,7 @@ export function quickFit(ctx: FitContext, tree: TreeSpec, centre0: number, width
   const theta0 = from ?? [centre0, ...tree.js, width0, ...(hasMixParam(layout) ? [-2] : [])];
   let res;
   try {
-    res = levenbergMarquardt(projectedResidual(ctx, layout), theta0, { maxIterations, tolerance: 1e-9, scales: Array.from(theta0, () => 1) });
+    res = levenbergMarquardt(projectedResidual(ctx, layout), theta0, { maxIterations, tolerance: 1e-6, scales: Array.from(theta0, () => 1) });
   } catch {
     return null;
   }

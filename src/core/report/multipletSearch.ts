@@ -24,6 +24,8 @@ const MAX_GROUPS = 5;
 const MAX_PARTNERS = 7;
 const MAX_ROUNDS = 4;
 const REFINE_FROM = 3;
+/** χ²_red below this: the tree explains the data to the noise and the search stops. */
+const CHI2_EXPLAINED = 1.5;
 /** Trees with more lines than this are not tried (a dddd of 16 lines, a qdd of 16, a tttt of 81 is not first-order practice). */
 const MAX_LINES = 48;
 /** A budget of screening fits per multiplet: overlapped regions otherwise explore long. */
@@ -151,6 +153,8 @@ export function searchTrees(ctx: FitContext, seeds: readonly Seed[], width0: num
       cur = next;
     }
     if (cur && (!best || cur.criterion < best.criterion)) best = cur;
+    // Residuals at the noise level: another start could only add parameters the criterion would refuse.
+    if (best && best.chi2Reduced < CHI2_EXPLAINED) break;
   }
   return best ? { best, tried } : null;
 }
