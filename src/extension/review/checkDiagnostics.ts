@@ -7,7 +7,7 @@ import { createHash } from 'node:crypto';
 import * as path from 'node:path';
 import * as vscode from 'vscode';
 import type { Problem } from '../../core/review/check';
-import { checkFolder, quickFixFor, type FolderReader } from './checkFolder';
+import { checkFolder, LatestRuns, quickFixFor, type FolderReader } from './checkFolder';
 
 const RELEVANT = /(\.couplet\.yaml|\.md|\.markdown|\.tex)$/i;
 const SOURCE = 'couplet check';
@@ -49,10 +49,13 @@ export function registerCheckDiagnostics(): vscode.Disposable[] {
   const collection = vscode.languages.createDiagnosticCollection('couplet-check');
   /** Files each folder's last run published to, so fixed problems disappear. */
   const published = new Map<string, string[]>();
+  const runs = new LatestRuns();
   const refresh = async (doc: vscode.TextDocument): Promise<void> => {
     if (doc.uri.scheme !== 'file' || !RELEVANT.test(doc.uri.fsPath)) return;
     const folder = path.dirname(doc.uri.fsPath);
+    const newest = runs.start(folder);
     const problems = await checkFolder(folder, reader, path.join);
+    if (!newest()) return;
     for (const f of published.get(folder) ?? []) collection.delete(vscode.Uri.file(f));
     const byFile = new Map<string, Problem[]>();
     for (const p of problems) byFile.set(p.file, [...(byFile.get(p.file) ?? []), p]);

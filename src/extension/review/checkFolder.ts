@@ -51,3 +51,20 @@ export function quickFixFor(rule: Problem['rule']): { command: string; title: st
   if (rule === 'stale-si' || rule === 'hidden-flags') return { command: 'couplet.insertSiData', title: 'Update the SI region from the sidecars' };
   return undefined;
 }
+
+/**
+ * Check runs per folder, newest wins. Save All fires one save event per file: the run started by
+ * the first can still read the other file's old text and, finishing last, would publish problems
+ * already fixed. Only the latest run started for a folder may publish.
+ */
+export class LatestRuns {
+  private readonly latest = new Map<string, number>();
+  private count = 0;
+
+  /** Starts a run; the function returned tells whether it is still the newest for its folder. */
+  start(folder: string): () => boolean {
+    const n = ++this.count;
+    this.latest.set(folder, n);
+    return () => this.latest.get(folder) === n;
+  }
+}

@@ -1,7 +1,7 @@
 import { createHash } from 'node:crypto';
 import { describe, expect, it } from 'vitest';
 import { formatSidecar, type Sidecar } from '../../../src/core/sidecar';
-import { checkFolder, quickFixFor, type FolderReader } from '../../../src/extension/review/checkFolder';
+import { checkFolder, LatestRuns, quickFixFor, type FolderReader } from '../../../src/extension/review/checkFolder';
 
 const join = (a: string, b: string): string => `${a}/${b}`;
 const DATA = 'bytes';
@@ -42,5 +42,17 @@ describe('checkFolder (the editor side of couplet check)', () => {
   it('leaves schema and hash problems to the panel diagnostics (no duplicates)', async () => {
     const r = folder({ 'c/cosy.jdx': 'changed', 'c/cosy.jdx.couplet.yaml': formatSidecar(sidecar('H-3')), 'c/note.md': NOTE });
     expect(await checkFolder('c', r, join)).toEqual([]);
+  });
+});
+
+describe('LatestRuns', () => {
+  it('keeps only the newest run per folder: an older run that finishes last is not published', () => {
+    const runs = new LatestRuns();
+    const first = runs.start('c');
+    const second = runs.start('c');
+    const other = runs.start('d');
+    expect(first()).toBe(false);
+    expect(second()).toBe(true);
+    expect(other()).toBe(true);
   });
 });
