@@ -100,6 +100,9 @@ export class PanelSession {
     const parsed = parseFromWebview(raw);
     if (!parsed.ok) {
       this.ports.log(`ignored a message from the ${this.model.fileName} panel: ${parsed.error}`);
+      // A request the panel waits for is answered, or it would wait for ever (e.g. "Measuring…").
+      const id: unknown = typeof raw === 'object' && raw !== null ? Reflect.get(raw, 'id') : undefined;
+      if (typeof id === 'number' && Number.isInteger(id) && id >= 0) this.post({ type: 'error', inReplyTo: id, message: `Couplet did not understand the request: ${parsed.error}` });
       return;
     }
     try {

@@ -102,15 +102,17 @@ describe('PanelSession', () => {
     expect(h2.logs[0]).toMatch(/^cosy\.jdx: handling "ready" failed: Error: boom/);
   });
 
-  it('ignores and logs a message that fails validation, posting nothing', async () => {
+  it('ignores and logs a message that fails validation; a request with an id gets an error reply, so the panel does not wait forever', async () => {
     await h.session.receive({ type: 'measure', id: 1, peakIndex: -1, method: 'fit', dimension: 'F2' });
     await h.session.receive({ type: 'eraseAll' });
     await h.session.receive('ready');
-    expect(h.posted).toEqual([]);
+    await h.session.receive({ type: 'requestTile', id: 2.5 });
+    expect(h.posted).toEqual([{ type: 'error', inReplyTo: 1, message: 'Couplet did not understand the request: message "measure": field "peakIndex" is missing or invalid' }]);
     expect(h.logs).toEqual([
       'ignored a message from the cosy.jdx panel: message "measure": field "peakIndex" is missing or invalid',
       'ignored a message from the cosy.jdx panel: unknown message type "eraseAll"',
       'ignored a message from the cosy.jdx panel: message is not an object with a string "type"',
+      'ignored a message from the cosy.jdx panel: message "requestTile": field "id" is missing or invalid',
     ]);
   });
 
