@@ -33,29 +33,34 @@ function dataFiles(folder: string): { oneD?: string; cosy?: string } {
   return { ...(oneD !== undefined && { oneD }), ...(cosy !== undefined && { cosy }) };
 }
 
-function noteFor(folder: string, compound: string): { path: string; text: string } | null {
+/** The folder's structure note: the first markdown file whose front matter names a compound (as buildReports picks it). */
+function noteIn(folder: string): { path: string; text: string } | null {
   for (const name of readdirSync(folder).sort()) {
     if (!/\.(md|markdown)$/i.test(name)) continue;
     const path = join(folder, name);
     const text = readFileSync(path, 'utf8');
-    if (readFrontMatter(text).compound === compound) return { path, text };
+    if (readFrontMatter(text).compound !== null) return { path, text };
   }
   return null;
 }
 
-/** The SD file for the target; notes go to io.err prefixed with the compound id. */
-export function nmredataOutput(target: string, reports: readonly CompoundReport[], io: CliIo): string {
-  // `reports` come from buildReports(target), which validates every sidecar (hash, conflicts) and
-  // yields one report per folder of findCompounds(target), in this order.
-  const folders = [...findCompounds(target)];
-  return reports.map((report, i) => {
-    const [folder, files] = folders[i] ?? ['.', []];
+/**
+ * The SD file for the target; notes go to io.err prefixed with the compound id. `build` is
+ * buildReports(target): it validates every sidecar and yields one report per folder of
+ * findCompounds(target), in that order. The notes' structures are read and checked before it runs,
+ * so a mistyped atom number stops the export at once.
+ */
+export function nmredataOutput(target: string, build: () => readonly CompoundReport[], io: CliIo): string {
+  const folders = [...findCompounds(target)].map(([folder, files]) => {
+    const note = noteIn(folder);
+    return { folder, files, structure: note ? readNoteStructure(note.path, note.text) : null };
+  });
+  return build().map((report, i) => {
+    const { folder, files, structure } = folders[i] ?? { folder: '.', files: [], structure: null };
     const sources: NetworkSource[] = files.flatMap((f) => {
       const sidecar = parseSidecar(readFileSync(f, 'utf8'), f).sidecar;
       return sidecar ? [{ file: f, sidecar }] : [];
     });
-    const note = noteFor(folder, report.compound);
-    const structure = note ? readNoteStructure(note.path, note.text) : null;
     const out = nmredataExport({
       report, shifts: atomShifts(sources), files: dataFiles(folder),
       ...(structure && { structure }),

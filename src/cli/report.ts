@@ -130,9 +130,8 @@ export function registerReport(program: Command, io: CliIo, setCode: (code: numb
     .argument('<target>', 'a directory searched for sidecars, or one sidecar (*.couplet.yaml)')
     .addOption(new Option('--format <format>', 'md, tex, json, csv (J table) or nmredata (SD file)').choices(['md', 'tex', 'json', 'csv', 'nmredata']).default('md'))
     .action((target: string, o: { format: ReportFormat }) => {
-      const reports = buildReports(target);
-      // NMReDATA needs more than the reports: the note's structure, label shifts, data file names.
-      io.out(o.format === 'nmredata' ? nmredataOutput(target, reports, io) : formatReports(reports, o.format));
+      // NMReDATA needs more than the reports: the notes' structures (checked first), label shifts, data file names.
+      io.out(o.format === 'nmredata' ? nmredataOutput(target, () => buildReports(target), io) : formatReports(buildReports(target), o.format));
       setCode(EXIT_OK);
     });
 }

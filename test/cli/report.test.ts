@@ -58,10 +58,10 @@ describe('couplet report on the samples (every invented compound has a note, spe
     expect(csv[1]).toMatch(/^brisquarene,H-/);
   });
 
-  it('nmredata: one SD record per compound with the NMREDATA tags (layout from Pupier et al. 2018, from memory)', () => {
+  it('nmredata: one SD record per compound with the NMREDATA tags (layout checked in test/cli/nmredata.test.ts)', () => {
     const sd = run('report', samples, '--format', 'nmredata').out;
     expect(sd.match(/^\$\$\$\$$/gm)).toHaveLength(3);
-    expect(sd).toContain('> <NMREDATA_1D_1H>\nLarmor=600.13\\\n');
+    expect(sd).toContain('>  <NMREDATA_1D_1H>\nLarmor=600.13\\\n');
   });
 });
 

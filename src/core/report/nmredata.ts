@@ -73,17 +73,33 @@ function assignmentLines(input: NmredataInput, signals: readonly SiSignal[], not
   return lines;
 }
 
-/** NMREDATA_J: `a, b, J[, nb=n]` with `nb=` (bonds between the two H atoms) when the structure gives it. */
-function jLines(input: NmredataInput): string[] {
-  return input.report.network.pairs.map((p) => {
+/** Long-range (4 or more bonds) H,H couplings rarely exceed this (handbook ranges: allylic, W-type 1-3 Hz [mem]). */
+const LONG_RANGE_MAX_HZ = 3;
+
+/**
+ * NMREDATA_J: `a, b, J[, nb=n]` with `nb=` (bonds between the two H atoms) when the structure gives it.
+ * A large J across four or more bonds more likely means a wrong label than a real coupling: flagged.
+ */
+function jLines(input: NmredataInput, notes: string[]): string[] {
+  const implausible: string[] = [];
+  const lines = input.report.network.pairs.map((p) => {
     const [a, b] = p.atoms;
     const fields = [labelText(a), labelText(b), hzText(absJ(p))];
     const ha = input.structure?.atoms.get(a)?.[0];
     const hb = input.structure?.atoms.get(b)?.[0];
     const nb = input.structure && ha !== undefined && hb !== undefined ? bondsBetween(input.structure.molfile, ha, hb) : null;
     if (nb !== null) fields.push(`nb=${nb}`);
-    return withComment(fields.join(SEP), jComment(p.adopted.sdHz, p.adopted.method, p.adopted.flags));
+    const flags = [...p.adopted.flags];
+    if (nb !== null && nb >= 4 && absJ(p) > LONG_RANGE_MAX_HZ) {
+      flags.push(`implausible_for_${nb}_bonds`);
+      implausible.push(`${a}/${b} (${hzText(absJ(p))} Hz across ${nb} bonds)`);
+    }
+    return withComment(fields.join(SEP), jComment(p.adopted.sdHz, p.adopted.method, flags));
   });
+  if (implausible.length > 0) {
+    notes.push(`J larger than ${LONG_RANGE_MAX_HZ} Hz across four or more bonds in the structure: ${implausible.join(', ')}; check the labels of these cross peaks.`);
+  }
+  return lines;
 }
 
 /** "1D attributes": S= apparent multiplicity (s d t q … bs m); `br` is not one of its letters. */
@@ -163,6 +179,7 @@ export function nmredataExport(input: NmredataInput): NmredataExport {
   if (!input.structure) notes.push('incomplete: no structure (add structure: and atoms: to the structure note), so the molfile is empty and NMREDATA_ASSIGNMENT is left out.');
   const signals = siSignals(r.derived.entries);
   const assignment = assignmentLines(input, signals, notes);
+  const js = jLines(input, notes);
   notes.push('Spectrum_Location (the spectrometer data the format requires) is not known to Couplet: add it to the NMREDATA_1D_1H and NMREDATA_2D_1H_NJ_1H tags.');
   const flagged = r.network.pairs.filter((p) => p.adopted.flags.length > 0).map((p) => `${p.atoms[0]}/${p.atoms[1]}`);
   if (flagged.length > 0) notes.push(`flagged J values, marked CAUTION in the comments (check them before using them for an assignment): ${flagged.join(', ')}.`);
@@ -174,7 +191,7 @@ export function nmredataExport(input: NmredataInput): NmredataExport {
   if (!r.header.solvent.endsWith('?')) out += sdTag('NMREDATA_SOLVENT', [r.header.solvent]);
   if (input.temperatureK !== undefined) out += sdTag('NMREDATA_TEMPERATURE', [`${input.temperatureK.toFixed(1)} K`]);
   if (assignment.length > 0) out += sdTag('NMREDATA_ASSIGNMENT', assignment);
-  if (r.network.pairs.length > 0) out += sdTag('NMREDATA_J', jLines(input));
+  if (js.length > 0) out += sdTag('NMREDATA_J', js);
   out += sdTag('NMREDATA_1D_1H', [
     withComment(`Larmor=${hzText(r.header.observeMhz)}`, input.files && input.files.oneD === undefined ? 'no 1D spectrum: signals derived from the DQF-COSY' : null),
     ...location(input.files?.oneD),

@@ -127,6 +127,16 @@ describe('NMREDATA_ASSIGNMENT and NMREDATA_J ("NMReDATA tag format", Agregated d
     expect(js.find((l) => l.startsWith('H-1, H-6, 0.70, nb=4 ;'))).toMatch(/CAUTION unresolved/);
   });
 
+  it('a J above 3 Hz across four or more bonds is flagged as implausible (long-range 4J 1-3 Hz, handbook ranges [mem]); 0.7 Hz across 4 is not', () => {
+    const mislabelled: Sidecar = { ...cosy, couplings: [...cosy.couplings, c('H-2a', 'H-6', 8.0)] };
+    const src = [{ file: 'cosy.jdx.couplet.yaml', sidecar: mislabelled }];
+    const out = nmredataExport({ report: compoundReport({ compound: 'f', sources: src, observeMhz: 400.13, solvent: 'CDCl3' }), structure });
+    const js = tagLines(out.record, 'NMREDATA_J');
+    expect(js.find((l) => l.startsWith('H-2a, H-6, 8.00, nb=5 ;'))).toMatch(/CAUTION implausible_for_5_bonds/);
+    expect(js.find((l) => l.startsWith('H-1, H-6, '))).not.toMatch(/implausible/);
+    expect(out.notes.join('\n')).toMatch(/H-2a\/H-6 \(8\.00 Hz across 5 bonds\).*check the labels/);
+  });
+
   it('every J pair names labels the record assigns', () => {
     const assigned = new Set(tagLines(sd, 'NMREDATA_ASSIGNMENT').map((l) => l.split(', ')[0]));
     for (const l of tagLines(sd, 'NMREDATA_J')) {
