@@ -5,7 +5,8 @@
 import { parseToWebview, type FromWebview, type InitMessage, type ToWebview } from '../src/protocol';
 import { commandAction } from './keys';
 import { checkContourSettings } from './levels';
-import { Panel, type Elements, type SavedState } from './panel';
+import { Panel, type Elements } from './panel';
+import { readSavedState, type SavedState } from './savedState';
 import { Requests, type Rpc } from './rpc';
 import { createToolbar, type Toolbar } from './toolkit';
 import { bindInput } from './input';
@@ -82,7 +83,7 @@ function applyLabel(p: Panel, t: Toolbar): void {
 }
 
 function start(init: InitMessage): void {
-  const saved = (vscode.getState() ?? {}) as SavedState;
+  const saved = readSavedState(vscode.getState(), init.peaks.length);
   panel?.dispose(); // a second init (e.g. the host restarted) replaces the panel
   const p = new Panel(init, el, rpc, (s) => vscode.setState(s), saved);
   panel = p;

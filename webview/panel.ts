@@ -9,6 +9,7 @@ import { step, type CacheEntry } from './contourCache';
 import type { Action } from './keys';
 import { contourLevels, levelsKey, levelUnit, usableContours } from './levels';
 import { MeasureState } from './measureState';
+import type { SavedState } from './savedState';
 import { peakAt, pickOn } from './hitTest';
 import { layoutFor, type Frame, type Layout } from './frame';
 import { drawFrame } from './plot';
@@ -28,17 +29,6 @@ export interface Elements {
   readonly trace: HTMLElement;
   readonly traceCanvas: HTMLCanvasElement;
   readonly traceText: HTMLElement;
-}
-
-/** What survives the panel being hidden (getState/setState instead of retainContextWhenHidden). */
-export interface SavedState {
-  readonly view?: View;
-  readonly selected?: number | null;
-  readonly contours?: ContourSettings;
-  readonly method?: 'fit' | 'naive';
-  readonly dimension?: 'F2' | 'F1';
-  /** The peak whose measurement was shown: measured again (the host has it cached) when the panel comes back. */
-  readonly shownPeak?: number;
 }
 
 /** Budget per animation frame for contouring, ms: leaves most of a 16 ms frame for input. */
