@@ -7,6 +7,7 @@ import type { CrossPeakInput, Measurement, MeasureOptions } from '../core/measur
 import { applyEdits, setDataHash } from '../core/sidecar';
 import { parseFromWebview, type FromWebview, type ToWebview, type ViewSettings } from '../protocol';
 import { CancelledError, FitFailedError } from './fitClient';
+import { measureAll, type MeasureAllSummary } from './measureAll';
 import { couplingValues, measurementView } from './measurementView';
 import { acceptText, labelText, removePickText, type CouplingValues } from './sidecarActions';
 import { sidecarState, type SidecarState } from './sidecarState';
@@ -51,12 +52,6 @@ export interface SessionPorts {
 type Method = 'fit' | 'naive';
 type Dim = 'F2' | 'F1';
 const key = (peak: number, method: Method, dim: Dim): string => `${peak}|${method}|${dim}`;
-
-export interface MeasureAllSummary {
-  readonly measured: number;
-  readonly failed: readonly string[];
-  readonly cancelled: boolean;
-}
 
 export class PanelSession {
   /** Measurements shown or made in this panel, so accept records exactly what the user saw. */
@@ -248,37 +243,16 @@ export class PanelSession {
     }
   }
 
-  /** Every cross peak, one after the other in the worker, with progress and cancel. */
-  async measureAll(method: Method): Promise<MeasureAllSummary> {
-    const dimension: Dim = 'F2';
-    const indices = this.model.crossPeaks.flatMap((p, i) => (p.kind === 'cross' ? [i] : []));
-    const failed: string[] = [];
-    let measured = 0;
+  /** Every cross peak, one after the other in the worker, with progress and cancel (measureAll.ts). */
+  measureAll(method: Method): Promise<MeasureAllSummary> {
     const cancels = this.cancels;
-    const cancelled = await this.ports.withProgress(`Measuring ${indices.length} cross peaks in ${this.model.fileName}`, async (report, token) => {
-      token.onCancel(() => this.measurer.cancel());
-      for (const [n, i] of indices.entries()) {
-        if (token.cancelled || this.cancels !== cancels || this.disposed) return true;
-        report(n, indices.length);
-        this.post({ type: 'progress', task: 'measureAll', done: n, total: indices.length });
-        try {
-          const r = await this.measurement(i, method, dimension);
-          measured++;
-          const p = this.model.crossPeaks[i];
-          this.ports.log(`${this.model.fileName} peak ${i} (F2 ${p?.f2Ppm.toFixed(4)} / F1 ${p?.f1Ppm.toFixed(4)} ppm): ` +
-            `J = ${r.jHz.toFixed(2)} ± ${r.jSdHz.toFixed(2)} Hz, ${r.method} ${r.dimension}${r.flags.length ? `, flags: ${r.flags.join(', ')}` : ''}`);
-        } catch (e) {
-          if (e instanceof CancelledError) return true;
-          failed.push(`peak ${i}: ${describe(e)}`);
-        }
-      }
-      this.post({ type: 'progress', task: 'measureAll', done: indices.length, total: indices.length });
-      return false;
+    return measureAll({
+      fileName: this.model.fileName, crossPeaks: this.model.crossPeaks, ports: this.ports,
+      measure: (i) => this.measurement(i, method, 'F2'),
+      cancelFits: () => this.measurer.cancel(),
+      stopped: () => this.cancels !== cancels || this.disposed,
+      post: (m) => this.post(m),
     });
-    for (const f of failed) this.ports.log(`${this.model.fileName} ${f}`);
-    this.ports.inform(`${this.model.fileName}: ${measured} of ${indices.length} cross peaks measured` +
-      `${failed.length ? `, ${failed.length} failed` : ''}${cancelled ? ' (cancelled)' : ''}; values in the Couplet output, ready to accept.`);
-    return { measured, failed, cancelled };
   }
 
   private existing(t: string | null): string {
