@@ -6,11 +6,12 @@ import { resolve } from 'node:path';
 import { writeAccuracyReport } from './accuracy';
 import { printContourBench, runContourBench } from './contours';
 import { runJcampBench } from './jcampParse';
+import { runMultipletBench } from './multiplets';
 import { runPipelineBench } from './pipeline';
 
 function main(): void {
   console.log('Couplet benchmarks (best of repeats; ratio = time / baseline time in this run)\n');
-  for (const r of runPipelineBench()) {
+  for (const r of [...runPipelineBench(), ...runMultipletBench()]) {
     console.log(`${r.name.padEnd(42)} ${r.value.padStart(12)}   ${(r.ms / r.baselineMs).toFixed(1).padStart(7)} x ${r.baseline} (${r.baselineMs.toFixed(2)} ms)`);
   }
   console.log('');
