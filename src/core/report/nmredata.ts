@@ -181,6 +181,8 @@ export function nmredataExport(input: NmredataInput): NmredataExport {
   const assignment = assignmentLines(input, signals, notes);
   const js = jLines(input, notes);
   notes.push('Spectrum_Location (the spectrometer data the format requires) is not known to Couplet: add it to the NMREDATA_1D_1H and NMREDATA_2D_1H_NJ_1H tags.');
+  const solventKnown = !r.header.solvent.endsWith('?');
+  if (!solventKnown) notes.push('no solvent in the structure note (solvent: CDCl3 or the one used): NMREDATA_SOLVENT left out.');
   const flagged = r.network.pairs.filter((p) => p.adopted.flags.length > 0).map((p) => `${p.atoms[0]}/${p.atoms[1]}`);
   if (flagged.length > 0) notes.push(`flagged J values, marked CAUTION in the comments (check them before using them for an assignment): ${flagged.join(', ')}.`);
   let out = input.structure ? input.structure.molfile.text : emptyMolfile(r.compound);
@@ -188,7 +190,7 @@ export function nmredataExport(input: NmredataInput): NmredataExport {
   out += sdTag('NMREDATA_LEVEL', ['0']);
   out += idTag(r, notes);
   if (input.structure) out += sdTag('NMREDATA_FORMULA', [formulaOf(input.structure.molfile)]);
-  if (!r.header.solvent.endsWith('?')) out += sdTag('NMREDATA_SOLVENT', [r.header.solvent]);
+  if (solventKnown) out += sdTag('NMREDATA_SOLVENT', [r.header.solvent]);
   if (input.temperatureK !== undefined) out += sdTag('NMREDATA_TEMPERATURE', [`${input.temperatureK.toFixed(1)} K`]);
   if (assignment.length > 0) out += sdTag('NMREDATA_ASSIGNMENT', assignment);
   if (js.length > 0) out += sdTag('NMREDATA_J', js);

@@ -189,6 +189,12 @@ describe('what the record lacks is said, in the record and to the user', () => {
     expect(partial.notes.join('\n')).toMatch(/no atom numbers for H-5, H-6, H-2a, H-2b/);
   });
 
+  it('a note without solvent: no NMREDATA_SOLVENT, and the notes say so', () => {
+    const noSolvent = nmredataExport({ report: compoundReport({ compound: 'f', sources, observeMhz: 400.13, solvent: null }) });
+    expect(noSolvent.record).not.toContain('<NMREDATA_SOLVENT>');
+    expect(noSolvent.notes.join('\n')).toMatch(/no solvent in the structure note/);
+  });
+
   it('flagged couplings and the missing Spectrum_Location are in the notes', () => {
     expect(withStructure.notes.join('\n')).toMatch(/Spectrum_Location/);
     expect(withStructure.notes.join('\n')).toMatch(/flagged J values.*H-1\/H-6/);
