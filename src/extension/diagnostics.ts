@@ -8,11 +8,14 @@ const SEVERITY: Record<SidecarDiagnostic['severity'], vscode.DiagnosticSeverity>
   info: vscode.DiagnosticSeverity.Information,
 };
 
+/** From the core's 1-based line and column to VS Code's 0-based range, running to the end of the line. */
+export function lineRange(line1: number, column1: number): vscode.Range {
+  const line = Math.max(0, line1 - 1);
+  return new vscode.Range(line, Math.max(0, column1 - 1), line, Number.MAX_SAFE_INTEGER);
+}
+
 export function toDiagnostic(d: SidecarDiagnostic): vscode.Diagnostic {
-  // Core positions are 1-based; VS Code's are 0-based. The range runs to the end of the line.
-  const line = Math.max(0, d.line - 1);
-  const col = Math.max(0, d.column - 1);
-  const out = new vscode.Diagnostic(new vscode.Range(line, col, line, Number.MAX_SAFE_INTEGER), d.message, SEVERITY[d.severity]);
+  const out = new vscode.Diagnostic(lineRange(d.line, d.column), d.message, SEVERITY[d.severity]);
   out.source = 'couplet';
   out.code = d.code;
   return out;

@@ -7,6 +7,7 @@ import { createHash } from 'node:crypto';
 import * as path from 'node:path';
 import * as vscode from 'vscode';
 import type { Problem } from '../../core/review/check';
+import { lineRange } from '../diagnostics';
 import { checkFolder, LatestRuns, quickFixFor, type FolderReader } from './checkFolder';
 
 const RELEVANT = /(\.couplet\.yaml|\.md|\.markdown|\.tex)$/i;
@@ -37,8 +38,7 @@ const reader: FolderReader = {
 };
 
 function toDiagnostic(p: Problem): vscode.Diagnostic {
-  const line = Math.max(0, p.line - 1);
-  const d = new vscode.Diagnostic(new vscode.Range(line, Math.max(0, p.column - 1), line, Number.MAX_SAFE_INTEGER), p.message,
+  const d = new vscode.Diagnostic(lineRange(p.line, p.column), p.message,
     p.severity === 'error' ? vscode.DiagnosticSeverity.Error : vscode.DiagnosticSeverity.Warning);
   d.source = SOURCE;
   d.code = p.rule;
