@@ -1,7 +1,9 @@
 /**
  * A 1D ¹H multiplet region: its lines, centre, integral (optionally normalised to a reference), a
- * first-order splitting tree (splittingTree.ts), a check against COSY J values of known partners,
- * and second-order warnings that replace the first-order J instead of reporting a wrong one.
+ * first-order splitting tree of the line maxima (splittingTree.ts), then a fit of the whole
+ * lineshape as a first-order tree (multipletLineshape.ts), which also gives partly resolved
+ * splittings; a check against COSY J values of known partners; and second-order and misfit
+ * warnings that replace the first-order J instead of reporting a wrong one.
  */
 import { hzPerPoint, hzToPoint, ppmToPoint, pointToHz, pointToPpm, resolutionHz } from '../spectrum/axis';
 import { estimateNoise } from '../spectrum/noise';
@@ -204,10 +206,19 @@ export function analyseMultiplet(s: Spectrum1D, fromPpm: number, toPpm: number, 
   const couplings = shape ? shape.couplings : tree?.groups ?? [];
   const reportable = (shape !== null || tree !== null) && !flags.some((f) => f === 'second-order' || f === 'not-first-order');
   const multiplicity = shape ? shape.multiplicity : tree?.multiplicity ?? 'm';
+  if (shape && reportable) noteSmallJ(shape.couplings, shape.fit.fwhmHz, shape.lineModel, notes);
   return {
     ...base, centreHz, centrePpm: centreHz / s.axis.observeMhz, linewidthHz: shape ? shape.fit.fwhmHz : linewidthHz, tree,
     fit: shape?.fit ?? null, couplings: reportable ? couplings : [], multiplicity: reportable ? multiplicity : 'm', flags, notes, cosy,
   };
+}
+
+/** Couplings below half the linewidth show as broadening, not as lines: their value rests on the lineshape model. */
+function noteSmallJ(couplings: readonly TreeGroup[], fwhmHz: number, lineModel: string, notes: string[]): void {
+  const small = couplings.filter((c) => c.jHz < fwhmHz / 2);
+  if (small.length === 0) return;
+  notes.push(`J = ${small.map((c) => c.jHz.toFixed(1)).join(', ')} Hz ${small.length > 1 ? 'are' : 'is'} below half the linewidth ` +
+    `(${fwhmHz.toFixed(1)} Hz): seen in the lineshape (${lineModel}), not as separate lines; confirm before relying on it.`);
 }
 
 /**

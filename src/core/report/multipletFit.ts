@@ -25,7 +25,11 @@ export interface FitContext {
 }
 
 export interface LineshapeFit {
-  /** Fitted couplings as modelled (one entry per J parameter), largest J first. */
+  /**
+   * Fitted couplings as modelled (one entry per J parameter), largest J first. sdHz: from the
+   * covariance with the noise sd and the processing's noise correlation (sandwich formula), scaled
+   * up by χ²_red when the residual exceeds the noise (never scaled down).
+   */
   groups: TreeGroup[];
   centreHz: number;
   centreSdHz: number;

@@ -150,7 +150,8 @@ function searchLineshape(s: Spectrum1D, inp: LineshapeInput): LineshapeResult | 
   // Two equal lines closer than w/√3 show one maximum (derived: the second derivative at the midpoint), so
   // nearly equal couplings (within a fifth of their size) that differ by less than that are written as one group.
   const couplings = mergeNear(found.best.groups, found.best.fwhmHz / Math.sqrt(3), NEARLY_EQUAL);
-  return { fit: found.best, couplings, multiplicity: lettersOf(couplings), tried: found.tried, lineModel: ctx.line.description };
+  return { fit: found.best, couplings, multiplicity: lettersOf(couplings), tried: found.tried,
+    lineModel: ctx.line.kind === 'processed' ? 'exact line of the recorded processing' : 'Lorentz-Gauss line, no processing recorded' };
 }
 
 /** Positions of both lists, those within tolHz of an earlier one dropped. */

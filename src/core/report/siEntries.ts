@@ -246,6 +246,11 @@ function observed(g: DerivedSignal, recorded: SiCoupling[], notes: string[]): Si
     notes.push(`${label}: the 1D multiplet is ${a.multiplicity}${js ? ` (J = ${js} Hz)` : ''}, the recorded couplings give ` +
       `${lettersOf(recorded)}${why}; the SI line follows the 1D spectrum.`);
   }
+  const small = a.couplings.filter((c) => c.jHz < a.linewidthHz / 2);
+  if (small.length > 0) {
+    notes.push(`${label}: J = ${small.map((c) => c.jHz.toFixed(1)).join(', ')} Hz is below half the 1D linewidth (${a.linewidthHz.toFixed(1)} Hz); ` +
+      'the lineshape fit sees it as broadening, not as separate lines: confirm it before relying on it.');
+  }
   return a.couplings.map((c) => ({ jHz: c.jHz, sdHz: c.sdHz, count: c.count, partners: [], flags: [] }));
 }
 

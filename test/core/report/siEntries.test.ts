@@ -3,6 +3,9 @@ import { buildNetwork } from '../../../src/core/network';
 import { compoundReport } from '../../../src/core/report/compound';
 import { atomShifts, deriveSiEntries, protonUnit } from '../../../src/core/report/siEntries';
 import type { Coupling, Pick, Sidecar } from '../../../src/core/sidecar/types';
+import { simulate1D } from '../../../src/core/simulate/simulate1D';
+import type { SpinSystem } from '../../../src/core/simulate/spinSystem';
+import type { DimensionProcessing } from '../../../src/core/spectrum/processing';
 
 const HASH = 'b'.repeat(64);
 const c = (a: string, b: string, jHz: number, extra: Partial<Coupling> = {}): Coupling =>
@@ -61,5 +64,46 @@ describe('protonUnit: whole proton counts from integrals', () => {
     const u = protonUnit([1.0, 2.06, 2.94])!;
     expect([1.0, 2.06, 2.94].map((x) => Math.round(x / u))).toEqual([1, 2, 3]);
     expect(protonUnit([2, 4, 6])).toBe(2);
+  });
+});
+
+describe('deriving SI entries with a 1D spectrum: the 1D multiplets get the COSY partners', () => {
+  // Processing like the samples' 1D (exponential 0.3 Hz, 2x zero-fill) on a narrower window, for speed.
+  const p: DimensionProcessing = { acquiredPoints: 8192, spectralWidthHz: 3000, carrierHz: 1680, window: { kind: 'exponential', lbHz: 0.3 }, size: 16384 };
+  const cosyOf = (pairs: [string, string, number, number, number][]): Sidecar => ({
+    schema: 'couplet-sidecar/1', data: { file: 'cosy.jdx', sha256: HASH },
+    picks: pairs.map(([a, b, , f2, f1], i) => cross(`q${i}`, f2, f1, [a, b])),
+    couplings: pairs.map(([a, b, j]) => c(a, b, j, { jSdHz: 0.2 })),
+  });
+
+  it('a partly resolved tt (11.0/11.3 and 4.6/4.4 Hz, 1.4 Hz lines) reaches the SI line as tt, J = 11.2, 4.5 Hz (common practice)', () => {
+    const sys: SpinSystem = {
+      observeMhz: 600,
+      spins: [{ label: 'H-1', ppm: 4.0, linewidthHz: 1.4 }, ...['H-2', 'H-3', 'H-4', 'H-5'].map((label, i) => ({ label, ppm: 1.2 + 0.6 * i, linewidthHz: 1 }))],
+      couplings: [{ a: 'H-1', b: 'H-2', jHz: 11.0 }, { a: 'H-1', b: 'H-3', jHz: 11.3 }, { a: 'H-1', b: 'H-4', jHz: 4.6 }, { a: 'H-1', b: 'H-5', jHz: 4.4 }],
+    };
+    const spectrum1D = simulate1D(sys, p, { noise: { seed: 2, snr: 1500 } }).spectrum;
+    // Only two of the four couplings measured in the COSY: the recorded ones predict dd.
+    const src = [{ file: 'cosy.jdx.couplet.yaml', sidecar: cosyOf([['H-1', 'H-2', 11.0, 4.0, 1.2], ['H-1', 'H-4', 4.6, 4.0, 2.4]]) }];
+    const d = deriveSiEntries({ network: buildNetwork(src), sources: src, spectrum1D });
+    const h1 = d.entries.find((e) => e.labels[0] === 'H-1')!;
+    expect(h1.multiplet).toBeUndefined();
+    expect(h1.couplings.map((x) => [Number(x.jHz.toFixed(1)), x.count])).toEqual([[11.2, 2], [4.5, 2]]);
+    expect(d.notes.join('\n')).toMatch(/H-1: the 1D multiplet is tt \(J = 11\.2, 4\.5 Hz\), the recorded couplings give dd/);
+  });
+
+  it('a partner 60 Hz away with J = 8 Hz (shift difference / J 7.5) makes the signal second order, though the simulated lines are first order', () => {
+    const sys: SpinSystem = {
+      observeMhz: 600,
+      spins: [{ label: 'H-1', ppm: 4.0, linewidthHz: 1 }, { label: 'H-2', ppm: 4.1, linewidthHz: 1 }],
+      couplings: [{ a: 'H-1', b: 'H-2', jHz: 8.0 }],
+    };
+    const spectrum1D = simulate1D(sys, p, { noise: { seed: 3, snr: 1500 } }).spectrum;
+    const src = [{ file: 'cosy.jdx.couplet.yaml', sidecar: cosyOf([['H-1', 'H-2', 8.0, 4.0, 4.1], ['H-2', 'H-1', 8.0, 4.1, 4.0]]) }];
+    const d = deriveSiEntries({ network: buildNetwork(src), sources: src, spectrum1D });
+    const h1 = d.entries.find((e) => e.labels[0] === 'H-1')!;
+    expect(h1.flags).toEqual(['second-order']);
+    const sig = d.signals.find((g) => g.labels[0] === 'H-1')!;
+    expect(sig.analysis!.notes.join(' ')).toMatch(/shift difference to H-2 \/ J = 7\.5/);
   });
 });
