@@ -1,6 +1,7 @@
 /**
  * Writes the V2000 molfile of each invented sample compound (samples/<id>/<id>.mol) with explicit
- * hydrogens, and prints the `structure:` / `atoms:` front-matter lines for its structure note.
+ * hydrogens, checks that its H atoms are the ones the notes name (scripts/sampleStructures.ts),
+ * and prints the notes' `structure:` / `atoms:` front-matter lines.
  *
  *   npx esbuild scripts/makeMolfiles.ts --bundle --platform=node --outfile=dist/makeMolfiles.js
  *   node dist/makeMolfiles.js samples
@@ -17,44 +18,9 @@ import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { Molecule } from 'openchemlib';
 import { writeMolfile, type MolAtom, type MolBond } from '../src/core/structure/molfile';
-
-interface Spec {
-  readonly id: string;
-  readonly comment: string;
-  /** Heavy atoms in locant order (atom n is C-n, O-n, …). */
-  readonly heavy: readonly string[];
-  /** [a, b, order, stereo] with 1-based heavy-atom numbers. */
-  readonly bonds: readonly (readonly [number, number, number, number])[];
-  /** Label -> heavy atom; `a`/`b` labels take the first/second H of that atom, others take all of them. */
-  readonly labels: readonly (readonly [string, number])[];
-}
+import { SPECS, atomMapOf, structureFrontMatter, type Spec } from './sampleStructures';
 
 const Z: Record<string, number> = { C: 6, O: 8, Cl: 17, Br: 35 };
-
-export const SPECS: readonly Spec[] = [
-  {
-    id: 'quellopyranol',
-    comment: '2-methyl-6-(hydroxymethyl)oxan-4-ol; constitution only, configuration open (invented compound)',
-    heavy: ['O', 'C', 'C', 'C', 'C', 'C', 'C', 'C', 'O', 'O'],
-    bonds: [[1, 2, 1, 0], [2, 3, 1, 0], [3, 4, 1, 0], [4, 5, 1, 0], [5, 6, 1, 0], [6, 1, 1, 0], [2, 7, 1, 0], [6, 8, 1, 0], [4, 9, 1, 0], [8, 10, 1, 0]],
-    labels: [['H-2', 2], ['H-3a', 3], ['H-3b', 3], ['H-4', 4], ['H-5a', 5], ['H-5b', 5], ['H-6', 6], ['H-7', 7], ['H-8a', 8], ['H-8b', 8]],
-  },
-  {
-    id: 'vantrelenol',
-    comment: 'hex-3-en-2-ol; olefin geometry open (stereo 3), invented compound',
-    heavy: ['C', 'C', 'C', 'C', 'C', 'C', 'O'],
-    bonds: [[1, 2, 1, 0], [2, 3, 1, 0], [3, 4, 2, 3], [4, 5, 1, 0], [5, 6, 1, 0], [2, 7, 1, 0]],
-    labels: [['H-1', 1], ['H-2', 2], ['H-3', 3], ['H-4', 4], ['H-5', 5], ['H-6', 6]],
-  },
-  {
-    id: 'brisquarene',
-    // The note fixes the OMe at C-1 and H at C-3, C-5, C-6; the other two substituents are our choice.
-    comment: '2-bromo-4-chloro-1-methoxybenzene pattern; Br and Cl stand in for the substituents the note leaves open',
-    heavy: ['C', 'C', 'C', 'C', 'C', 'C', 'C', 'O', 'Br', 'Cl'],
-    bonds: [[1, 2, 2, 0], [2, 3, 1, 0], [3, 4, 2, 0], [4, 5, 1, 0], [5, 6, 2, 0], [6, 1, 1, 0], [1, 8, 1, 0], [8, 7, 1, 0], [2, 9, 1, 0], [4, 10, 1, 0]],
-    labels: [['H-3', 3], ['H-5', 5], ['H-6', 6], ['H-7', 7]],
-  },
-];
 
 function build(spec: Spec): { atoms: MolAtom[]; bonds: MolBond[] } {
   const m = new Molecule(0, 0);
@@ -79,16 +45,15 @@ function build(spec: Spec): { atoms: MolAtom[]; bonds: MolBond[] } {
   return { atoms, bonds };
 }
 
-/** Label -> H atom numbers: the H atoms bonded to the label's heavy atom, split a/b in atom-number order. */
-function atomMap(spec: Spec, bonds: readonly MolBond[], atoms: readonly MolAtom[]): [string, number[]][] {
+/** The H atoms openchemlib bonded to each label's atom must be the ones the notes name (atomMapOf). */
+function checkAtomMap(spec: Spec, bonds: readonly MolBond[], atoms: readonly MolAtom[]): void {
   const hOn = (n: number): number[] => bonds
     .flatMap((b) => (b.a === n ? [b.b] : b.b === n ? [b.a] : []))
     .filter((x) => atoms[x - 1]?.symbol === 'H').sort((x, y) => x - y);
-  return spec.labels.map(([label, heavy]) => {
-    const hs = hOn(heavy);
-    const which = /[ab]$/.test(label) ? hs.slice(label.endsWith('a') ? 0 : 1, label.endsWith('a') ? 1 : 2) : hs;
-    return [label, which];
-  });
+  for (const [label, numbers] of atomMapOf(spec)) {
+    const heavy = spec.labels.find(([l]) => l === label)?.[1] ?? 0;
+    if (!numbers.every((n) => hOn(heavy).includes(n))) throw new Error(`${spec.id}: ${label} should be H atom(s) ${numbers.join(', ')} of atom ${heavy}; the molfile has ${hOn(heavy).join(', ')}`);
+  }
 }
 
 function main(dir: string): void {
@@ -96,8 +61,8 @@ function main(dir: string): void {
     const { atoms, bonds } = build(spec);
     const file = `${spec.id}.mol`;
     writeFileSync(join(dir, spec.id, file), writeMolfile({ title: spec.id, program: 'Couplet', comment: spec.comment, atoms, bonds }));
-    const map = atomMap(spec, bonds, atoms).map(([l, ns]) => `${l}: ${ns.length === 1 ? String(ns[0]) : `[${ns.join(', ')}]`}`);
-    process.stdout.write(`${spec.id}:\nstructure: ${file}\natoms: { ${map.join(', ')} }\n\n`);
+    checkAtomMap(spec, bonds, atoms);
+    process.stdout.write(`${spec.id}:\n${structureFrontMatter(spec.id).join('\n')}\n\n`);
   }
 }
 

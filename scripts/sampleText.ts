@@ -1,5 +1,6 @@
 /** Markdown for the demo scenario: the samples README and one structure note per compound. */
 import type { SampleCompound } from './sampleScenario';
+import { structureFrontMatter } from './sampleStructures';
 
 export function structureNote(c: SampleCompound): string {
   const rows = c.environments.map(([label, env]) => `| ${label} | ${env} |`);
@@ -8,6 +9,8 @@ export function structureNote(c: SampleCompound): string {
     `compound: ${c.id}`,
     // The SI line's header names the solvent (couplet report, Insert ¹H NMR Data); the story's spectra are in CDCl3.
     'solvent: CDCl3',
+    // The molfile and label -> H atom numbers for the NMReDATA export (scripts/sampleStructures.ts).
+    ...structureFrontMatter(c.id),
     '---',
     '',
     `# ${c.name}`,
