@@ -158,6 +158,8 @@ export interface ErrorMessage {
   readonly type: 'error';
   readonly inReplyTo?: number;
   readonly message: string;
+  /** The request was cancelled (Esc, the cancel button), not failed: no "record without J" offer. */
+  readonly cancelled?: true;
 }
 
 /** A command from the palette or a keybinding that the panel carries out (next peak, zoom...). */
@@ -318,7 +320,7 @@ const TO_WEBVIEW: Record<ToWebview['type'], (m: Obj) => string | null> = {
   sidecar: (m) => (!isSidecarView(m.sidecar) ? 'sidecar' : null),
   measured: (m) => (!isNonNegInt(m.inReplyTo) ? 'inReplyTo' : !isMeasurementView(m.measurement) ? 'measurement' : null),
   progress: (m) => (!isStr(m.task) ? 'task' : !isNonNegInt(m.done) ? 'done' : !isNonNegInt(m.total) ? 'total' : null),
-  error: (m) => (!isStr(m.message) ? 'message' : null),
+  error: (m) => (!isStr(m.message) ? 'message' : !(m.cancelled === undefined || m.cancelled === true) ? 'cancelled' : null),
   command: (m) => (!(isStr(m.command) && Object.hasOwn(PANEL_COMMANDS, m.command)) ? 'command' : null),
   settings: (m) => (!isViewSettings(m.settings) ? 'settings' : null),
   compare: (m) => (!(m.against === null || isStr(m.against)) ? 'against' : !(Array.isArray(m.marks) && m.marks.every(isReviewMark)) ? 'marks' : null),

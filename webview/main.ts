@@ -110,7 +110,7 @@ function onMessage(m: ToWebview): void {
       if (!rpc.requests.resolve(m.inReplyTo, m)) console.warn(`couplet: reply to unknown request ${m.inReplyTo}`);
       return;
     case 'error':
-      if (m.inReplyTo !== undefined && rpc.requests.reject(m.inReplyTo, m.message)) return;
+      if (m.inReplyTo !== undefined && rpc.requests.reject(m.inReplyTo, m.message, m.cancelled === true)) return;
       return void p?.status(m.message);
     case 'sidecar': return void p?.setSidecar(m.sidecar);
     case 'compare': return void p?.setReview(m);

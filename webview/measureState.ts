@@ -41,6 +41,13 @@ export class MeasureState {
     return true;
   }
 
+  /** A cancelled request: nothing failed, so Accept does not offer a pick without J for it. */
+  cancelled(token: number): boolean {
+    if (token !== this.latest) return false;
+    this.failedPeak = null;
+    return true;
+  }
+
   /** What Accept does for the selected peak: the shown J, a bare pick after a failure, or a reason. */
   accept(selected: number | null, labels: readonly string[], dims: 1 | 2, method: Method, dimension: Dim, jDecimals: number): AcceptChoice {
     if (dims === 1) {

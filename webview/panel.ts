@@ -4,7 +4,7 @@
  * frame, and contouring is spread over frames (a few ms each) so input stays responsive.
  */
 import type { CompareMessage, ContourSettings, InitMessage, PeakView, PickView, SidecarView, ViewSettings } from '../src/protocol';
-import type { Rpc } from './rpc';
+import { CancelledReply, type Rpc } from './rpc';
 import { step, type CacheEntry } from './contourCache';
 import type { Action } from './keys';
 import { contourLevels, levelsKey, levelUnit, usableContours } from './levels';
@@ -213,7 +213,11 @@ export class Panel {
         this.persist();
       },
       (e: unknown) => {
-        if (this.measured.failed(token, idx)) this.status(`Measurement failed: ${e instanceof Error ? e.message : String(e)} (Accept records the pick without J)`);
+        if (e instanceof CancelledReply) {
+          if (this.measured.cancelled(token)) this.status('Measurement cancelled.');
+        } else if (this.measured.failed(token, idx)) {
+          this.status(`Measurement failed: ${e instanceof Error ? e.message : String(e)} (Accept records the pick without J)`);
+        }
       },
     );
   }

@@ -4,6 +4,11 @@
  */
 import type { FromWebview, MeasuredMessage, TileMessage } from '../src/protocol';
 
+/** The host cancelled the request (Esc, a cancel button): not a failure of the work itself. */
+export class CancelledReply extends Error {
+  override readonly name = 'CancelledReply';
+}
+
 export interface Pending<T> {
   readonly id: number;
   readonly promise: Promise<T>;
@@ -30,11 +35,12 @@ export class Requests<Reply> {
     return true;
   }
 
-  reject(inReplyTo: number, message: string): boolean {
+  /** Settles a request with an error; `cancelled` makes it a CancelledReply. */
+  reject(inReplyTo: number, message: string, cancelled = false): boolean {
     const w = this.waiting.get(inReplyTo);
     if (!w) return false;
     this.waiting.delete(inReplyTo);
-    w.reject(new Error(message));
+    w.reject(cancelled ? new CancelledReply(message) : new Error(message));
     return true;
   }
 

@@ -171,7 +171,7 @@ export class PanelSession {
       const m = await this.measurement(index, method, dimension);
       this.post({ type: 'measured', inReplyTo: id, measurement: measurementView(index, m) });
     } catch (e) {
-      this.post({ type: 'error', inReplyTo: id, message: describe(e) });
+      this.post({ type: 'error', inReplyTo: id, message: describe(e), ...(e instanceof CancelledError && { cancelled: true as const }) });
     }
   }
 

@@ -316,6 +316,14 @@ describe('PanelSession when a measurement fails', () => {
     expect(h.notes).toEqual([]);
   });
 
+  it('marks the reply to a cancelled measure as cancelled (the panel must not offer a bare pick for it)', async () => {
+    const h = failing(new CancelledError('measurement cancelled'));
+    await h.session.receive({ type: 'measure', id: 9, peakIndex: 1, method: 'fit', dimension: 'F2' });
+    expect(last(h)).toEqual({ type: 'error', inReplyTo: 9, message: 'measurement cancelled', cancelled: true });
+    const m = last(h);
+    expect(m && parseToWebview(m).ok).toBe(true);
+  });
+
   it('records nothing when the user cancelled the measurement', async () => {
     const h = failing(new CancelledError('cancelled'));
     await h.session.receive({ type: 'accept', peakIndex: 1, method: 'fit', dimension: 'F2', labels: ['H-1', 'H-2'] });

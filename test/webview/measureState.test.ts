@@ -38,4 +38,10 @@ describe('MeasureState', () => {
       request: { type: 'accept', peakIndex: 0, method: 'fit', dimension: 'F2', labels: ['H-3'] }, status: 'Picked multiplet 0 as H-3.',
     });
   });
+  it('does not offer a bare pick after a cancelled measurement (only after one that failed)', () => {
+    const s = new MeasureState();
+    expect(s.cancelled(s.started())).toBe(true);
+    expect(s.failedPeak).toBeNull();
+    expect(s.accept(1, [], 2, 'fit', 'F2', 2)).toEqual({ status: 'Measure the selected peak before accepting.' });
+  });
 });

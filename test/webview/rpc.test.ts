@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { FromWebview } from '../../src/protocol';
-import { Requests } from '../../webview/rpc';
+import { CancelledReply, Requests } from '../../webview/rpc';
 
 describe('Requests', () => {
   it('numbers requests and settles each by its inReplyTo', async () => {
@@ -22,5 +22,14 @@ describe('Requests', () => {
     expect(r.resolve(a.id, 'x')).toBe(true);
     expect(r.resolve(a.id, 'y')).toBe(false);
     expect(r.resolve(999, 'z')).toBe(false);
+  });
+  it('rejects a cancelled request with CancelledReply, so the panel can tell it from a failure', async () => {
+    const r = new Requests<string>();
+    const a = r.send(() => undefined, (id) => ({ type: 'measure', id, peakIndex: 1, method: 'fit', dimension: 'F2' }));
+    const b = r.send(() => undefined, (id) => ({ type: 'measure', id, peakIndex: 2, method: 'fit', dimension: 'F2' }));
+    expect(r.reject(a.id, 'measurement cancelled', true)).toBe(true);
+    expect(r.reject(b.id, 'no peak')).toBe(true);
+    await expect(a.promise).rejects.toBeInstanceOf(CancelledReply);
+    await expect(b.promise).rejects.not.toBeInstanceOf(CancelledReply);
   });
 });
