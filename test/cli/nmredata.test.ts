@@ -114,6 +114,22 @@ describe('couplet report --format nmredata on the samples', () => {
     expect(valueLines(q?.NMREDATA_J).find((l) => l.startsWith('H-3a, H-4, '))).toMatch(/, nb=3 ;/);
   });
 
+  it('1D signals give one J per multiplicity letter ("1D attributes", J=: "S=td, J=9.30, 4.81"), none for s, bs and m', () => {
+    let checked = 0;
+    for (const m of parsed.molecules) {
+      for (const line of valueLines(m.NMREDATA_1D_1H).filter((l) => /^\d/.test(l))) {
+        const s = /, S=([a-z]+)/.exec(line)?.[1] ?? '';
+        const j = /, J=(.*?), N=/.exec(line)?.[1];
+        if (['s', 'bs', 'm'].includes(s)) expect(j, line).toBeUndefined();
+        else {
+          expect(j?.split(', ')).toHaveLength(s.length);
+          checked++;
+        }
+      }
+    }
+    expect(checked).toBeGreaterThan(3);
+  });
+
   it('every tag value line ends in "\\" and tags are separated by one empty line ("End-of-line", "Sdf files")', () => {
     const tagText = r.out.split('$$$$\n').map((rec) => rec.slice(rec.indexOf('M  END\n') + 7)).join('');
     for (const line of tagText.split('\n')) {
