@@ -88,6 +88,7 @@ function start(init: InitMessage): void {
   const p = new Panel(init, el, rpc, (s) => vscode.setState(s), saved);
   panel = p;
   toolbar.setKnownLabels(init.knownLabels);
+  toolbar.label.value = p.labelDraft;
   toolbar.lowest.set(p.contours.lowestLevel);
   toolbar.levels.set(p.contours.levels);
   toolbar.spacing.set(p.contours.spacing);
@@ -174,6 +175,11 @@ toolbar.onClick(toolbar.measure, () => panel?.measure());
 toolbar.onClick(toolbar.accept, () => panel && acceptKey(panel, toolbar));
 toolbar.onClick(toolbar.remove, () => panel && removePick(panel));
 toolbar.onClick(toolbar.measureAll, () => panel && rpc.post({ type: 'measureAll', method: panel.method }));
+toolbar.label.addEventListener('input', () => {
+  if (!panel) return;
+  panel.labelDraft = toolbar.label.value;
+  panel.persist();
+});
 toolbar.label.addEventListener('keydown', (e) => {
   if (e.key === 'Enter' && panel) applyLabel(panel, toolbar);
   if (e.key === 'Escape') el.canvas.focus();

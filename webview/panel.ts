@@ -46,6 +46,8 @@ export class Panel {
   selected: number | null;
   /** The measurement shown and what Accept sends (replies to older requests are dropped). */
   readonly measured = new MeasureState();
+  /** The label field's text (main.ts keeps it current), kept with the view state. */
+  labelDraft: string;
   box: Frame['box'] = null;
   /** Changes since another revision (the compare overlay); main.ts lists them beside the plot. */
   review: ReviewState = NO_REVIEW;
@@ -71,6 +73,7 @@ export class Panel {
     this.extent = extentOf(this.meta);
     this.view = clampView(saved.view ?? { x: this.extent.x, y: this.extent.y }, this.extent);
     this.selected = saved.selected ?? null;
+    this.labelDraft = saved.labelDraft ?? '';
     this.palette = readPalette();
     this.tiles = new TileSource(rpc, this.meta.dims === 2, {
       // 1D: the intensity axis follows the data after an F2 zoom.
@@ -90,7 +93,10 @@ export class Panel {
 
   persist(): void {
     const shownPeak = this.measured.shown?.peakIndex;
-    this.save({ view: this.view, selected: this.selected, contours: this.contours, method: this.method, dimension: this.dimension, ...(shownPeak !== undefined && { shownPeak }) });
+    this.save({
+      view: this.view, selected: this.selected, contours: this.contours, method: this.method, dimension: this.dimension,
+      ...(shownPeak !== undefined && { shownPeak }), ...(this.labelDraft !== '' && { labelDraft: this.labelDraft }),
+    });
   }
 
   setContours(c: ContourSettings): void {

@@ -16,6 +16,8 @@ export interface SavedState {
   readonly dimension?: 'F2' | 'F1';
   /** The peak whose measurement was shown: measured again (the host has it cached) when the panel comes back. */
   readonly shownPeak?: number;
+  /** Atom labels typed in the label field and not yet applied. */
+  readonly labelDraft?: string;
 }
 
 type Obj = Record<string, unknown>;
@@ -38,5 +40,6 @@ export function readSavedState(raw: unknown, peakCount: number): SavedState {
     ...((raw.method === 'fit' || raw.method === 'naive') && { method: raw.method }),
     ...((raw.dimension === 'F2' || raw.dimension === 'F1') && { dimension: raw.dimension }),
     ...(selected !== null && raw.shownPeak === selected && { shownPeak: selected }),
+    ...(typeof raw.labelDraft === 'string' && raw.labelDraft !== '' && { labelDraft: raw.labelDraft }),
   };
 }

@@ -18,6 +18,11 @@ describe('readSavedState', () => {
     expect(readSavedState({ ...good, shownPeak: 1 }, 4).shownPeak).toBeUndefined();
   });
 
+  it('keeps labels typed but not yet applied, and drops a draft that is not text', () => {
+    expect(readSavedState({ labelDraft: 'H-3, H-4a' }, 4).labelDraft).toBe('H-3, H-4a');
+    expect(readSavedState({ labelDraft: 3 }, 4).labelDraft).toBeUndefined();
+  });
+
   it('reads nothing from a state that is not an object', () => {
     expect(readSavedState(undefined, 4)).toEqual({});
     expect(readSavedState('x', 4)).toEqual({});
