@@ -20,7 +20,7 @@ export class VsSidecarStore implements SidecarStore, vscode.Disposable {
   /** Fires after the text changed, for whatever reason. */
   readonly onDidChange = this.changed.event;
 
-  private constructor(readonly uri: vscode.Uri) {
+  private constructor(readonly uri: vscode.Uri, log: (message: string) => void) {
     this.fileName = uri.path.split('/').pop() ?? uri.path;
     const same = (u: vscode.Uri): boolean => u.toString() === uri.toString();
     this.subscriptions.push(
@@ -35,12 +35,13 @@ export class VsSidecarStore implements SidecarStore, vscode.Disposable {
     // When no TextDocument is open for it, VS Code does not read the file: watch the disk ourselves.
     const folder = vscode.Uri.joinPath(uri, '..');
     const watcher = vscode.workspace.createFileSystemWatcher(new vscode.RelativePattern(folder, this.fileName));
-    const fromDisk = (): void => void this.readDisk();
+    // A read that fails (permissions, a folder in its place) keeps the last text and says why.
+    const fromDisk = (): void => void this.readDisk().catch((e: unknown) => log(`${this.fileName}: could not read the change on disk: ${e instanceof Error ? e.message : String(e)}`));
     this.subscriptions.push(watcher, watcher.onDidCreate(fromDisk), watcher.onDidChange(fromDisk), watcher.onDidDelete(fromDisk));
   }
 
-  static async open(uri: vscode.Uri): Promise<VsSidecarStore> {
-    const store = new VsSidecarStore(uri);
+  static async open(uri: vscode.Uri, log: (message: string) => void): Promise<VsSidecarStore> {
+    const store = new VsSidecarStore(uri, log);
     try {
       await store.readDisk();
     } catch (e) {

@@ -25,7 +25,7 @@ export class SpectrumDocument implements vscode.CustomDocument {
     const fileName = uri.path.split('/').pop() ?? uri.path;
     // The data first: a file that cannot be read must not leave a sidecar watcher behind.
     const bytes = await vscode.workspace.fs.readFile(uri);
-    const store = await VsSidecarStore.open(vscode.Uri.joinPath(uri, '..', sidecarNameFor(fileName)));
+    const store = await VsSidecarStore.open(vscode.Uri.joinPath(uri, '..', sidecarNameFor(fileName)), log);
     // Hashing here, not in core: core does no I/O and no hashing (design.md, sidecar).
     const sha256 = createHash('sha256').update(bytes).digest('hex');
     // JCAMP-DX is ASCII; latin1 maps each byte to one character, so line numbers stay right in damaged files.
