@@ -2,7 +2,10 @@ import { describe, expect, it } from 'vitest';
 import { analyseMultiplet, type KnownPartner, type MultipletAnalysis } from '../../../src/core/report/multiplet';
 import { mergeNear } from '../../../src/core/report/multipletLineshape';
 import { treeLines } from '../../../src/core/report/multipletModel';
+import { seededRandom } from '../../../src/core/simulate/random';
 import { simulate1D } from '../../../src/core/simulate/simulate1D';
+import { makeAxis } from '../../../src/core/spectrum/axis';
+import { make1D } from '../../../src/core/spectrum/spectrum';
 import type { Spin, SpinSystem } from '../../../src/core/simulate/spinSystem';
 import type { DimensionProcessing } from '../../../src/core/spectrum/processing';
 
@@ -90,6 +93,27 @@ describe('partly resolved multiplets: the fit gives what the line maxima cannot'
     expect(a.multiplicity).toBe('pd');
     expect(Math.abs(a.couplings[0]!.jHz - 6.45)).toBeLessThan(0.1);
     expect(Math.abs(a.couplings[1]!.jHz - 1.0)).toBeLessThan(0.1);
+  });
+});
+
+describe('a spectrum without recorded processing (Lorentz-Gauss line model)', () => {
+  it('an analytic Lorentzian dt (J 9.2, 2.4 Hz, 1.0 Hz lines) with seeded noise: J within 0.1 Hz', () => {
+    // Lines of a dt at ν0 ± 4.6 ± {2.4, 0, −2.4}, weights 1:2:1 (Pascal's triangle), Lorentzian of FWHM 1.0 Hz.
+    const axis = makeAxis(8192, 2600, 2200, MHZ);
+    const rng = seededRandom(9);
+    const data = new Float64Array(axis.points);
+    for (let i = 0; i < axis.points; i++) {
+      const x = axis.firstHz + (i * (axis.lastHz - axis.firstHz)) / (axis.points - 1);
+      for (const a of [4.6, -4.6]) {
+        for (const [b, w] of [[2.4, 1], [0, 2], [-2.4, 1]] as const) data[i] = (data[i] ?? 0) + w / (1 + (2 * (x - 2400 - a - b)) ** 2);
+      }
+      data[i] = (data[i] ?? 0) + 0.001 * rng.gaussian();
+    }
+    const a = analyseMultiplet(make1D('dt, no processing recorded', data, axis), 2415 / MHZ, 2385 / MHZ);
+    expect(a.flags).toEqual([]);
+    expect(a.multiplicity).toBe('dt');
+    expect(Math.abs(a.couplings[0]!.jHz - 9.2)).toBeLessThan(0.1);
+    expect(Math.abs(a.couplings[1]!.jHz - 2.4)).toBeLessThan(0.1);
   });
 });
 
