@@ -122,12 +122,22 @@ export class PanelSession {
     }
   }
 
-  private async init(): Promise<void> {
+  /** The last scan of the workspace's atom labels, once one has answered. */
+  private lastLabels: readonly string[] | null = null;
+
+  private scanLabels(): Promise<readonly string[]> {
     // Completion is a convenience: a workspace that cannot be searched must not keep the plot from showing.
-    const knownLabels = await this.ports.knownLabels().catch((e: unknown) => {
+    return this.ports.knownLabels().then((l) => (this.lastLabels = l), (e: unknown) => {
       this.ports.log(`could not collect atom labels from the workspace: ${describe(e)}`);
-      return [];
+      return this.lastLabels ?? [];
     });
+  }
+
+  private async init(): Promise<void> {
+    // A panel shown again after being hidden reloads and asks again: it gets the last scan at once
+    // (a scan reads every note) while a new one runs for the next time.
+    const scan = this.scanLabels();
+    const knownLabels = this.lastLabels ?? await scan;
     this.post({
       type: 'init', spectrum: spectrumMeta(this.model), settings: this.ports.settings(),
       peaks: peakViews(this.model), sidecar: this.state().view, knownLabels: [...knownLabels],

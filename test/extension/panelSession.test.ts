@@ -64,6 +64,22 @@ describe('PanelSession', () => {
     h = harness();
   });
 
+  it('answers the ready of a restored panel at once with the last label scan, refreshing it for the next time', async () => {
+    const scans: ((labels: string[]) => void)[] = [];
+    let calls = 0;
+    const k = harness(null, testModel(), {
+      knownLabels: () => (++calls === 1 ? Promise.resolve(['H-1']) : new Promise((resolve) => void scans.push(resolve))),
+    });
+    await k.session.receive({ type: 'ready' });
+    await k.session.receive({ type: 'ready' }); // the scan started here has not answered
+    const inits = k.posted.filter((m) => m.type === 'init');
+    expect(inits.map((m) => m.type === 'init' && m.knownLabels)).toEqual([['H-1'], ['H-1']]);
+    scans[0]?.(['H-1', 'H-9']);
+    await Promise.resolve();
+    await k.session.receive({ type: 'ready' });
+    expect(k.posted.filter((m) => m.type === 'init').map((m) => m.type === 'init' && m.knownLabels).at(-1)).toEqual(['H-1', 'H-9']);
+  }, 2000);
+
   it('calls afterInit once init is posted, so a reloaded webview gets the overlay back after its init', async () => {
     const order: string[] = [];
     const k = harness(null, testModel(), { afterInit: () => void order.push(`afterInit after ${k.posted.map((m) => m.type).join(',')}`) });
