@@ -1,9 +1,8 @@
 /**
- * Fit of a 1D multiplet's lineshape as one first-order splitting tree (multipletModel.ts), and the
- * search over candidate trees: seeds from the line maxima and from known COSY partners, then small
- * steps (add one small coupling, merge two near-equal J into a group, split a group) kept only when
- * they lower the Bayesian information criterion (Schwarz, Ann. Stat. 6 (1978) 461 [mem]) computed
- * with the noise sd and the noise correlation of the processed spectrum.
+ * Fit of a 1D multiplet's lineshape as one first-order splitting tree (multipletModel.ts): short
+ * screening fits to rank trees, polished fits with uncertainties, and the criterion that compares
+ * trees, the Bayesian information criterion (Schwarz, Ann. Stat. 6 (1978) 461 [mem]) computed with
+ * the noise sd and the noise correlation of the processed spectrum. The search is multipletSearch.ts.
  */
 import { pseudoInverse, type Matrix } from 'ml-matrix';
 import { jtRj, type NoiseCorrelation } from '../measure/correlation';

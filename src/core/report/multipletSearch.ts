@@ -1,8 +1,9 @@
 /**
  * Which first-order tree explains a multiplet's lineshape: every seed tree is fitted, then the best
- * ones are changed in small steps (one more small coupling; two near-equal J merged into a t/q group;
- * a group split into two J; one partner more or fewer in a group) while a step lowers the information criterion. A tree whose J falls
- * below what the lineshape can hold apart from zero is not kept.
+ * ones are changed in small steps (one more small coupling; two near-equal J merged into a t/q
+ * group; a group split into two J; one partner more or fewer in a group) while a step lowers the
+ * information criterion. A tree whose J falls below what the lineshape can hold apart from zero is
+ * not kept.
  */
 import { fitTree, polish, quickFit, type FitContext, type LineshapeFit, type QuickFit } from './multipletFit';
 import { basisOf, dot, residualOf, shapeOf, solveLinear, type TreeSpec } from './multipletModel';
@@ -15,7 +16,7 @@ export interface Seed {
 
 export interface SearchResult {
   best: LineshapeFit;
-  /** Trees fitted, for benchmarks and notes. */
+  /** Screening fits run: how hard the search had to look. */
   tried: number;
 }
 
