@@ -14,7 +14,7 @@ import { peakAt, pickOn } from './hitTest';
 import { layoutFor, type Frame, type Layout } from './frame';
 import { drawFrame } from './plot';
 import type { View } from './scales';
-import { changeStatus, NO_REVIEW, stepChange, type ReviewState } from './review';
+import { changeStatus, NO_REVIEW, reviewUpdate, stepChange, type ReviewState } from './review';
 import { readPalette, type Palette } from './theme';
 import { planTile, type PointWindow, type TilePlan } from './tiles';
 import { TileSource } from './tileSource';
@@ -251,8 +251,9 @@ export class Panel {
   }
 
   setReview(m: CompareMessage): void {
-    this.review = { against: m.against, marks: m.marks, current: null };
-    this.status(changeStatus(this.review));
+    const u = reviewUpdate(this.review, m);
+    this.review = u.state;
+    if (u.newComparison) this.status(changeStatus(this.review));
     this.onReview?.(this.review);
     this.redraw();
   }

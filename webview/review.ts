@@ -58,3 +58,16 @@ export function changeStatus(s: ReviewState): string {
   if (m === undefined) return `${s.marks.length} change(s) since ${s.against}: C / Shift+C step through them.`;
   return `${(s.current ?? 0) + 1}/${s.marks.length} since ${s.against}: ${m.text}`;
 }
+
+/**
+ * The overlay after a message from the host. The host sends it again after every edit of the
+ * sidecar while it is shown: the change in focus stays in focus when it is still there (matched by
+ * its text), and `newComparison` says whether this is another comparison (then the status line
+ * tells about it) or a refresh of the same one (then the status line is left to the last action).
+ */
+export function reviewUpdate(prev: ReviewState, m: { readonly against: string | null; readonly marks: readonly ReviewMarkView[] }): { state: ReviewState; newComparison: boolean } {
+  const newComparison = prev.against !== m.against;
+  const focused = prev.current === null ? undefined : prev.marks[prev.current];
+  const at = newComparison || focused === undefined ? -1 : m.marks.findIndex((k) => k.text === focused.text);
+  return { state: { against: m.against, marks: m.marks, current: at < 0 ? null : at }, newComparison };
+}

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import type { ReviewMarkView } from '../../src/protocol';
 import { keyAction } from '../../webview/keys';
-import { changeStatus, MARK_SHAPE, NO_REVIEW, stepChange, type ReviewState } from '../../webview/review';
+import { changeStatus, MARK_SHAPE, NO_REVIEW, reviewUpdate, stepChange, type ReviewState } from '../../webview/review';
 
 const marks: ReviewMarkView[] = [
   { kind: 'added', text: 'pick p-3 added', f2Ppm: 5, f1Ppm: 3 },
@@ -35,5 +35,23 @@ describe('compare overlay view model', () => {
   it('maps C and Shift+C to the next and previous change', () => {
     expect(key('c')).toEqual({ kind: 'nextChange' });
     expect(key('C', true)).toEqual({ kind: 'previousChange' });
+  });
+});
+
+describe('reviewUpdate (the host refreshes the overlay after each edit)', () => {
+  it('keeps the change in focus when it is still there, and says the status need not change', () => {
+    const added = { kind: 'added', text: 'pick p-9 added', f2Ppm: 6, f1Ppm: 2 } as const;
+    const u = reviewUpdate(state(1), { against: 'HEAD', marks: [added, ...marks] });
+    expect(u.state.current).toBe(2);
+    expect(u.state.marks).toHaveLength(4);
+    expect(u.newComparison).toBe(false);
+  });
+
+  it('drops the focus when its change is gone, and starts afresh for another revision', () => {
+    expect(reviewUpdate(state(1), { against: 'HEAD', marks: [marks[0]!] }).state.current).toBeNull();
+    const other = reviewUpdate(state(1), { against: 'main', marks });
+    expect(other.state.current).toBeNull();
+    expect(other.newComparison).toBe(true);
+    expect(reviewUpdate(NO_REVIEW, { against: 'HEAD', marks }).newComparison).toBe(true);
   });
 });
