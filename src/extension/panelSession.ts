@@ -105,7 +105,9 @@ export class PanelSession {
     } catch (e) {
       // A bug must not leave the panel waiting in silence: say what failed, keep the host running.
       this.ports.log(`${this.model.fileName}: handling "${parsed.value.type}" failed: ${e instanceof Error ? e.stack ?? e.message : String(e)}`);
-      this.post({ type: 'error', message: `Couplet could not handle "${parsed.value.type}": ${describe(e)}` });
+      // A request's reply settles it: without inReplyTo a tile request would stay open and the plot stop loading.
+      const m = parsed.value;
+      this.post({ type: 'error', ...('id' in m && { inReplyTo: m.id }), message: `Couplet could not handle "${m.type}": ${describe(e)}` });
     }
   }
 

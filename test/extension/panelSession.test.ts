@@ -111,6 +111,22 @@ describe('PanelSession', () => {
     expect(h2.logs).toEqual(['could not collect atom labels from the workspace: search is disabled']);
   });
 
+  it('answers a request whose handling failed unexpectedly, so the panel does not wait for ever (a stuck tile freezes the plot)', async () => {
+    let first = true;
+    const posted: ToWebview[] = [];
+    const h2 = harness(null, testModel(), {
+      post: (m) => {
+        if (m.type === 'tile' && first) {
+          first = false;
+          throw new Error('clone failed');
+        }
+        posted.push(m);
+      },
+    });
+    await h2.session.receive({ type: 'requestTile', id: 5, region: { row0: 0, row1: 7, col0: 0, col1: 7 }, maxRows: 8, maxCols: 8 });
+    expect(posted).toEqual([{ type: 'error', inReplyTo: 5, message: 'Couplet could not handle "requestTile": clone failed' }]);
+  });
+
   it('turns an unexpected failure into an error message instead of silence', async () => {
     const h2 = harness(null, testModel(), { settings: () => { throw new Error('boom'); } });
     await h2.session.receive({ type: 'ready' });
