@@ -31,6 +31,8 @@ export class CompareOverlay {
   private shown: Shown | null = null;
   private last: CompareMessage | null = null;
   private cancelPending: (() => void) | null = null;
+  /** The panel closed: posting to its webview would throw. */
+  private disposed = false;
 
   constructor(
     private readonly fileName: string,
@@ -49,6 +51,7 @@ export class CompareOverlay {
    * was not there yet). Returns why it cannot, or null when shown.
    */
   show(name: string, oldText: string | null): string | null {
+    if (this.disposed) return null;
     const before = oldText === null ? null : parseSidecar(oldText, `${name}:${this.fileName}`).sidecar;
     if (oldText !== null && before === null) return `${this.fileName} at ${name} cannot be read as a sidecar (conflict markers or a syntax error).`;
     const now = this.current(before);
@@ -67,7 +70,7 @@ export class CompareOverlay {
 
   /** Call on every change of the sidecar text; the overlay follows after a pause. */
   sidecarChanged(): void {
-    if (this.shown === null) return;
+    if (this.shown === null || this.disposed) return;
     this.stopPending();
     this.cancelPending = this.schedule(() => {
       this.cancelPending = null;
@@ -81,6 +84,7 @@ export class CompareOverlay {
   }
 
   dispose(): void {
+    this.disposed = true;
     this.stopPending();
     this.shown = null;
   }
@@ -110,7 +114,7 @@ export class CompareOverlay {
 
   private send(m: CompareMessage): void {
     this.last = m;
-    this.post(m);
+    if (!this.disposed) this.post(m);
   }
 
   private stopPending(): void {

@@ -123,5 +123,9 @@ describe('CompareOverlay', () => {
     elapse();
     expect(h.timers.size).toBe(0);
     expect(h.posted).toHaveLength(2);
+    // The panel closed while the revision list was open: its webview is gone, nothing is posted.
+    expect(overlay.show('main', formatSidecar(base))).toBeNull();
+    overlay.clear();
+    expect(h.posted).toHaveLength(2);
   });
 });
