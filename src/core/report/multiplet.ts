@@ -261,18 +261,20 @@ function judgeRoofing(lines: MultipletAnalysis['lines'], asymmetry: number | nul
 }
 
 /**
- * (area above the centre − area below) / total, the fitted baseline removed, over a window
- * symmetric about the fitted centre: the lean of the whole multiplet, less noisy than line heights.
+ * (area above the centre − area below) / total, over a window symmetric about the fitted centre,
+ * less the fitted baseline's level at the centre (not its slope, which would absorb part of a lean):
+ * the lean of the whole multiplet, less noisy than line heights.
  */
 export function areaAsymmetry(s: Spectrum1D, i0: number, fit: LineshapeFit): number {
   const c = hzToPoint(s.axis, fit.centreHz) - i0;
   const m = fit.baseline.length;
   const half = Math.min(c, m - 1 - c);
+  const level = fit.baseline[Math.max(0, Math.min(m - 1, Math.round(c)))] ?? 0;
   let hi = 0;
   let lo = 0;
   for (let k = 0; k < m; k++) {
     if (Math.abs(k - c) > half) continue;
-    const v = (s.data[i0 + k] ?? 0) - (fit.baseline[k] ?? 0);
+    const v = (s.data[i0 + k] ?? 0) - level;
     // The axis may run either way: point index up means frequency down when hzPerPoint < 0.
     if ((k - c) * Math.sign(hzPerPoint(s.axis)) > 0) hi += v;
     else if (k !== c) lo += v;

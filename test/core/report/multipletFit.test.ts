@@ -1,11 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import { analyseMultiplet, type KnownPartner, type MultipletAnalysis } from '../../../src/core/report/multiplet';
+import { processedLine } from '../../../src/core/measure/lineshape';
 import { mergeNear } from '../../../src/core/report/multipletLineshape';
 import { treeLines } from '../../../src/core/report/multipletModel';
 import { seededRandom } from '../../../src/core/simulate/random';
 import { simulate1D } from '../../../src/core/simulate/simulate1D';
 import { makeAxis } from '../../../src/core/spectrum/axis';
-import { make1D } from '../../../src/core/spectrum/spectrum';
+import { make1D, type Spectrum1D } from '../../../src/core/spectrum/spectrum';
 import type { Spin, SpinSystem } from '../../../src/core/simulate/spinSystem';
 import type { DimensionProcessing } from '../../../src/core/spectrum/processing';
 
@@ -117,7 +118,44 @@ describe('a spectrum without recorded processing (Lorentz-Gauss line model)', ()
   });
 });
 
+/**
+ * AB quartet with the exact processed line of `p` and seeded noise (the simulator is first order).
+ * Standard result (any NMR text; from the 2-spin Hamiltonian): 2C = √(Δν² + J²), sin 2θ = J / 2C,
+ * lines at ν0 ± (C + J/2) with intensity 1 − sin 2θ and ν0 ± (C − J/2) with 1 + sin 2θ.
+ */
+function abQuartet(dnuHz: number, jHz: number, snr: number): Spectrum1D {
+  const c = Math.sqrt(dnuHz ** 2 + jHz ** 2) / 2;
+  const s2t = jHz / (2 * c);
+  const lines = [[c + jHz / 2, 1 - s2t], [c - jHz / 2, 1 + s2t], [-c + jHz / 2, 1 + s2t], [-c - jHz / 2, 1 - s2t]] as const;
+  const first = p.carrierHz + p.spectralWidthHz / 2;
+  const step = p.spectralWidthHz / p.size;
+  const axis = makeAxis(p.size, first, first - step * (p.size - 1), MHZ);
+  const data = new Float64Array(p.size);
+  const re = new Float64Array(p.size);
+  const im = new Float64Array(p.size);
+  for (const [off, amp] of lines) {
+    processedLine(p).evaluateGrid(2400 + off - first, step, 0.8, 0, re, im);
+    for (let i = 0; i < p.size; i++) data[i] = (data[i] ?? 0) + amp * (re[i] ?? 0);
+  }
+  const top = data.reduce((a, v) => Math.max(a, v), 0);
+  const rng = seededRandom(6);
+  for (let i = 0; i < p.size; i++) data[i] = (data[i] ?? 0) + (top / snr) * rng.gaussian();
+  return make1D('AB quartet', data, axis, p);
+}
+
 describe('what the fit refuses', () => {
+  it('an AB quartet at Δν/J = 2 (J 7 Hz, SNR 500, recorded processing): the whole and its upper half are m, the half with roofing', () => {
+    const s = abQuartet(14, 7, 500);
+    const c = Math.sqrt(14 ** 2 + 7 ** 2) / 2;
+    const whole = analyseMultiplet(s, (2400 + c + 8.5) / MHZ, (2400 - c - 8.5) / MHZ);
+    expect(whole.flags).toContain('not-first-order');
+    expect([whole.multiplicity, whole.couplings]).toEqual(['m', []]);
+    const upper = analyseMultiplet(s, (2400 + c + 8.5) / MHZ, (2400 + c - 6.5) / MHZ);
+    expect(upper.flags).toEqual(expect.arrayContaining(['not-first-order', 'roofing', 'second-order']));
+    expect([upper.multiplicity, upper.couplings]).toEqual(['m', []]);
+  });
+
+
   it('two overlapping multiplets (a d and a t 6 Hz apart) in one region: misfit, written as m without J', () => {
     const sys: SpinSystem = {
       observeMhz: MHZ,
