@@ -7,7 +7,7 @@ import { commandAction } from './keys';
 import { checkContourSettings } from './levels';
 import { Panel, type Elements } from './panel';
 import { readSavedState, type SavedState } from './savedState';
-import { Requests, type Rpc } from './rpc';
+import { Requests, settleInvalidReply, type Rpc } from './rpc';
 import { createToolbar, type Toolbar } from './toolkit';
 import { bindInput } from './input';
 import { parseLabels } from './labels';
@@ -140,6 +140,8 @@ window.addEventListener('message', (e: MessageEvent<unknown>) => {
   const parsed = parseToWebview(e.data);
   if (!parsed.ok) {
     console.warn(`couplet: ignored a message from the host: ${parsed.error}`);
+    // A reply settles its request with the reason; anything else (a sidecar update) is said in the status line.
+    if (!settleInvalidReply(rpc.requests, e.data, parsed.error)) panel?.status(`Couplet ignored an update it could not read (${parsed.error}); reopen the spectrum if the plot looks stale.`);
     return;
   }
   onMessage(parsed.value);

@@ -54,3 +54,13 @@ export interface Rpc {
   readonly post: (m: FromWebview) => void;
   readonly requests: Requests<TileMessage | MeasuredMessage>;
 }
+
+/**
+ * A message from the host that failed validation but names a request in `inReplyTo`: that request
+ * is rejected with the reason, so the panel shows it instead of waiting for ever ("Measuring…", or
+ * a tile that never comes and stops the plot loading). False when it answers no waiting request.
+ */
+export function settleInvalidReply<R>(requests: Requests<R>, raw: unknown, error: string): boolean {
+  const id: unknown = typeof raw === 'object' && raw !== null ? Reflect.get(raw, 'inReplyTo') : undefined;
+  return typeof id === 'number' && requests.reject(id, `the host sent a reply the panel cannot read: ${error}`);
+}

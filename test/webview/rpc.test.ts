@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { FromWebview } from '../../src/protocol';
-import { CancelledReply, Requests } from '../../webview/rpc';
+import { CancelledReply, Requests, settleInvalidReply } from '../../webview/rpc';
 
 describe('Requests', () => {
   it('numbers requests and settles each by its inReplyTo', async () => {
@@ -31,5 +31,13 @@ describe('Requests', () => {
     expect(r.reject(b.id, 'no peak')).toBe(true);
     await expect(a.promise).rejects.toBeInstanceOf(CancelledReply);
     await expect(b.promise).rejects.not.toBeInstanceOf(CancelledReply);
+  });
+  it('settles the request an invalid reply answers, with the validation error, instead of waiting for ever', async () => {
+    const r = new Requests<string>();
+    const a = r.send(() => undefined, (id) => ({ type: 'measure', id, peakIndex: 1, method: 'fit', dimension: 'F2' }));
+    expect(settleInvalidReply(r, { type: 'measured', inReplyTo: a.id, measurement: {} }, 'field "measurement" is missing or invalid')).toBe(true);
+    await expect(a.promise).rejects.toThrow('the host sent a reply the panel cannot read: field "measurement" is missing or invalid');
+    expect(settleInvalidReply(r, { type: 'sidecar' }, 'x')).toBe(false);
+    expect(settleInvalidReply(r, 'junk', 'x')).toBe(false);
   });
 });
