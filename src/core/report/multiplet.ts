@@ -190,8 +190,10 @@ export function analyseMultiplet(s: Spectrum1D, fromPpm: number, toPpm: number, 
   const partners = opts.partners ?? [];
   // Weaker maxima (4 noise sd, prominence 2 sd) only seed the lineshape fit, which decides whether they are lines.
   const weak = pickLines(s, i0, i1, Math.max(SEED_LEVEL_NOISE * noise, 0.02 * top), noise, SEED_LEVEL_NOISE / 2);
+  // The outermost lines of a first-order multiplet are single lines; the tallest is often a blend.
+  const ends = [lines[0], lines[lines.length - 1]].map((l) => (l ? widthAt(s, l.hz, l.height) : Infinity));
   const shape = opts.lineshape === false ? null : analyseLineshape(s, {
-    i0, i1, noise, lines, weakLines: weak.map((l) => l.hz), linewidthHz, maximaTree: tree,
+    i0, i1, noise, lines, weakLines: weak.map((l) => l.hz), linewidthHz: Math.min(linewidthHz, ...ends), maximaTree: tree,
     partners: partners.filter((p) => p.jHz !== undefined).map((p) => ({ jHz: Math.abs(p.jHz ?? 0), count: p.count ?? 1 })),
   });
   const w = lines.reduce((a, l) => a + l.height, 0);

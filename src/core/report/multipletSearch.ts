@@ -63,21 +63,30 @@ export function bestSeeds(ctx: FitContext, seeds: readonly Seed[], width0: numbe
     .sort((a, b) => a.rss - b.rss).slice(0, keep).map((x) => x.seed);
 }
 
-/** The tree with the first pair of J equal within 2 combined sd (or 0.05 Hz) merged, or null when there is none. */
+/** The tree with the closest pair of J that are equal within 2 combined sd (or 0.05 Hz) merged, or null when there is none. */
 export function equalMerged(f: LineshapeFit): TreeSpec | null {
   const g = f.groups;
+  let pick: [number, number] | null = null;
+  let closest = Infinity;
   for (let a = 0; a < g.length; a++) {
     for (let b = a + 1; b < g.length; b++) {
       const ga = g[a];
       const gb = g[b];
       if (!ga || !gb || ga.count + gb.count > 4) continue;
-      if (Math.abs(ga.jHz - gb.jHz) > Math.max(0.05, 2 * Math.hypot(ga.sdHz, gb.sdHz))) continue;
-      const rest = g.filter((_, k) => k !== a && k !== b);
-      const n = ga.count + gb.count;
-      return { js: [...rest.map((r) => r.jHz), (ga.jHz * ga.count + gb.jHz * gb.count) / n], counts: [...rest.map((r) => r.count), n] };
+      const d = Math.abs(ga.jHz - gb.jHz);
+      if (d <= Math.max(0.05, 2 * Math.hypot(ga.sdHz, gb.sdHz)) && d < closest) {
+        closest = d;
+        pick = [a, b];
+      }
     }
   }
-  return null;
+  if (!pick) return null;
+  const [a, b] = pick;
+  const ga = g[a] ?? { jHz: 0, count: 1 };
+  const gb = g[b] ?? { jHz: 0, count: 1 };
+  const rest = g.filter((_, k) => k !== a && k !== b);
+  const n = ga.count + gb.count;
+  return { js: [...rest.map((r) => r.jHz), (ga.jHz * ga.count + gb.jHz * gb.count) / n], counts: [...rest.map((r) => r.count), n] };
 }
 
 /** Trees one step away: one more small coupling, two near-equal J as one group, a group split in two, a partner more or fewer. */
@@ -137,10 +146,14 @@ export function searchTrees(ctx: FitContext, seeds: readonly Seed[], width0: num
     }
     return null;
   };
-  /** Two J that converged to one value are one group of equivalent partners: refit as such (else their sd blow up). */
+  /**
+   * Two J that converged to one value are one group of equivalent partners: refit as such (else their
+   * sd blow up), and keep the group when it is no worse by the criterion or the split fit is implausible.
+   */
   const collapse = (f: LineshapeFit | null): LineshapeFit | null => {
     const t = f ? equalMerged(f) : null;
-    return f && t ? fitTree(ctx, t, f.centreHz, f.widthParam) ?? f : f;
+    const merged = f && t ? fitTree(ctx, t, f.centreHz, f.widthParam) : null;
+    return f && merged && (merged.criterion <= f.criterion || !plausible(f, maxFwhmHz)) ? merged : f;
   };
   const screened = screen(seeds.map((x) => ({ tree: x.tree, centreHz: x.centreHz, width: width0 })));
   // Refine from the few best seeds, not only the best: one greedy path can end in a local minimum.
