@@ -4,7 +4,7 @@
  * edit stack, so undo/redo, the dirty marker, save, revert and hot exit behave as usual.
  */
 import * as vscode from 'vscode';
-import { textToRestore } from './backupText';
+import { decodeBackup, encodeBackup, textToRestore } from './backupText';
 import { publish } from './diagnostics';
 import { writeUndoable } from './editHistory';
 import type { WorkerLike } from './fitClient';
@@ -66,7 +66,13 @@ export class SpectrumEditorProvider implements vscode.CustomEditorProvider<Spect
   /** Hot exit: the unsaved sidecar text comes back (unless VS Code already restored the document itself). */
   private async restoreBackup(doc: SpectrumDocument, backup: vscode.Uri): Promise<void> {
     try {
-      const text = textToRestore(new TextDecoder('utf-8').decode(await vscode.workspace.fs.readFile(backup)), doc.store.text());
+      const saved = decodeBackup(new TextDecoder('utf-8').decode(await vscode.workspace.fs.readFile(backup)));
+      if (saved === null) {
+        this.output.appendLine(`the backup of ${doc.store.fileName} is damaged (cut short); it was not restored, the sidecar is as on disk`);
+        void vscode.window.showWarningMessage(`Couplet: the unsaved changes of ${doc.store.fileName} could not be restored (damaged backup); the sidecar is as on disk.`);
+        return;
+      }
+      const text = textToRestore(saved, doc.store.text());
       if (text !== null && !(await doc.store.write(text, 'Restore unsaved changes'))) {
         this.output.appendLine(`could not restore the backup of ${doc.store.fileName}: VS Code did not apply the change`);
       }
@@ -152,7 +158,7 @@ export class SpectrumEditorProvider implements vscode.CustomEditorProvider<Spect
   }
 
   async backupCustomDocument(document: SpectrumDocument, context: vscode.CustomDocumentBackupContext): Promise<vscode.CustomDocumentBackup> {
-    await vscode.workspace.fs.writeFile(context.destination, new TextEncoder().encode(document.store.text() ?? ''));
+    await vscode.workspace.fs.writeFile(context.destination, new TextEncoder().encode(encodeBackup(document.store.text() ?? '')));
     return {
       id: context.destination.toString(),
       delete: () => void vscode.workspace.fs.delete(context.destination).then(undefined, () => undefined),

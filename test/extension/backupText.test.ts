@@ -1,6 +1,6 @@
 /** Hot exit: which backed-up sidecar text is put back into the document (src/extension/backupText.ts). */
 import { describe, expect, it } from 'vitest';
-import { textToRestore } from '../../src/extension/backupText';
+import { decodeBackup, encodeBackup, textToRestore } from '../../src/extension/backupText';
 
 describe('textToRestore', () => {
   it('puts the unsaved text back when the document lost it', () => {
@@ -16,5 +16,24 @@ describe('textToRestore', () => {
   it('never empties a sidecar with a blank backup (taken while there was no sidecar yet)', () => {
     expect(textToRestore('', 'schema: couplet-sidecar/1\npicks: []\n')).toBeNull();
     expect(textToRestore('  \n', 'schema: couplet-sidecar/1\n')).toBeNull();
+  });
+});
+
+describe('encodeBackup / decodeBackup', () => {
+  const text = 'schema: couplet-sidecar/1\npicks:\n  - id: p-1\n';
+
+  it('reads back exactly what was written', () => {
+    expect(decodeBackup(encodeBackup(text))).toBe(text);
+    expect(decodeBackup(encodeBackup(''))).toBe('');
+  });
+
+  it('refuses a torn backup (the write cut short), which would otherwise bring back a sidecar missing its last picks', () => {
+    const whole = encodeBackup(text);
+    expect(decodeBackup(whole.slice(0, whole.length - 12))).toBeNull();
+    expect(decodeBackup(whole.replace('p-1', 'p-2'))).toBeNull();
+  });
+
+  it('reads a backup without the check line as it is (written before the check existed)', () => {
+    expect(decodeBackup(text)).toBe(text);
   });
 });
