@@ -22,6 +22,8 @@ function clampDomain(d: Domain, full: Domain, minSpan: number): Domain {
   const lo = Math.min(full[0], full[1]);
   const hi = Math.max(full[0], full[1]);
   let centre = (d[0] + d[1]) / 2;
+  // A view that is not a number (a zoom factor of 0 or infinity) would stay NaN for good: show it all.
+  if (!Number.isFinite(centre)) centre = (lo + hi) / 2;
   centre = Math.min(hi - span / 2, Math.max(lo + span / 2, centre));
   return dir > 0 ? [centre - span / 2, centre + span / 2] : [centre + span / 2, centre - span / 2];
 }

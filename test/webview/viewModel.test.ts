@@ -22,6 +22,14 @@ describe('zoomAt', () => {
   });
 });
 
+describe('clampView', () => {
+  it('falls back to the whole spectrum for a view that is not a number (an extreme wheel delta, a damaged state)', () => {
+    expect(clampView({ x: [Number.NaN, 3], y: [10, 0] }, extent)).toEqual(full);
+    expect(zoomAt(full, extent, size, 500, 250, 0)).toEqual(full); // factor 0: exp(-deltaY * k) for a huge deltaY
+    expect(zoomAt(full, extent, size, 500, 250, Number.POSITIVE_INFINITY).x.every(Number.isFinite)).toBe(true);
+  });
+});
+
 describe('pan', () => {
   it('moves the content with the pointer: dragging right by 100 px shows 1 ppm more on the high-ppm side', () => {
     const v = zoomAt(full, extent, size, 500, 250, 2);
