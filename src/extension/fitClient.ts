@@ -64,9 +64,9 @@ export class FitClient {
     return r;
   }
 
-  /** Stops the work in progress: every pending request rejects with CancelledError. */
+  /** Stops the work in progress: every pending request rejects with CancelledError. An idle worker is kept (restarting it costs a reload). */
   cancel(): void {
-    this.stop(new CancelledError('measurement cancelled'));
+    if (this.pending.size > 0) this.stop(new CancelledError('measurement cancelled'));
   }
 
   dispose(): void {

@@ -171,4 +171,18 @@ describe('FitClient bookkeeping (fake worker)', () => {
     expect(spawned).toBe(0);
     expect(client.inFlight).toBe(0);
   });
+  it('keeps the worker when cancel finds nothing to cancel (Esc in the panel also ends a box zoom)', async () => {
+    let spawned = 0;
+    const w = new FakeWorker();
+    const client = new FitClient(() => (spawned++, w), null);
+    const a = client.measure(peakAt, {});
+    const id = w.sent.find((m) => m.type === 'measure');
+    w.emit('message', { type: 'measured', inReplyTo: id?.type === 'measure' ? id.id : -1, measurement: fakeMeasurement(1) });
+    await a;
+    client.cancel();
+    expect(w.terminated).toBe(false);
+    void client.measure(peakAt, {}).catch(() => undefined);
+    expect(spawned).toBe(1);
+    client.dispose();
+  });
 });
