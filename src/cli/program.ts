@@ -4,6 +4,7 @@ import { registerCheck } from './check';
 import { expandInputs, loadSpectrum, type CliIo } from './io';
 import { info, infoText } from './info';
 import { measureAll, measureAt, measurementsText, notesText, require2D, type MeasureOptions, type MeasurementJson } from './measure';
+import { measure1D, multipletsText, type MultipletAnalysisJson } from './measure1D';
 import { peaks, peaksText } from './peaks';
 import { registerReport } from './report';
 import { registerRender } from './render';
@@ -23,6 +24,8 @@ function positiveArg(value: string): number {
 interface MeasureCliOptions {
   f2?: number;
   f1?: number;
+  from?: number;
+  to?: number;
   all?: boolean;
   json?: boolean;
   method: 'fit' | 'naive';
@@ -33,25 +36,39 @@ interface MeasureCliOptions {
 function runMeasure(io: CliIo, target: string, o: MeasureCliOptions): number {
   const mo: MeasureOptions = { method: o.method, dimension: o.dimension, threshold: o.threshold };
   if (!o.all) {
-    if (o.f2 === undefined || o.f1 === undefined) throw new InputError('measure needs --f2 PPM and --f1 PPM (or --all)');
     const [file] = expandInputs(target);
     if (!file || file !== target) throw new InputError(`${target}: measure at a point needs a file, not a directory`);
-    const m = measureAt(file, require2D(file, loadSpectrum(file)), o.f2, o.f1, mo);
+    const s = loadSpectrum(file);
+    if (s.dims === 1) {
+      if (o.f2 === undefined && o.from === undefined) throw new InputError('measure on a 1D spectrum needs --from PPM --to PPM, --f2 PPM, or --all');
+      const ms = measure1D(file, s, { from: o.from, to: o.to, f2: o.f2 }, o.threshold);
+      io.out(o.json ? JSON.stringify(ms[0], null, 2) + '\n' : multipletsText(ms));
+      return EXIT_OK;
+    }
+    if (o.f2 === undefined || o.f1 === undefined) throw new InputError('measure needs --f2 PPM and --f1 PPM (or --all)');
+    const m = measureAt(file, require2D(file, s), o.f2, o.f1, mo);
     io.out(o.json ? JSON.stringify(m, null, 2) + '\n' : measurementsText([m]) + notesText([m]));
     return EXIT_OK;
   }
   const results: MeasurementJson[] = [];
+  const multiplets: MultipletAnalysisJson[] = [];
   const failures: string[] = [];
   for (const file of expandInputs(target)) {
     const s = loadSpectrum(file);
-    if (s.dims !== 2) continue; // 1D spectra have no cross peaks; their multiplets are listed by `peaks`.
+    if (s.dims === 1) {
+      multiplets.push(...measure1D(file, s, {}, o.threshold));
+      continue;
+    }
     const r = measureAll(file, s, mo);
     results.push(...r.results);
     failures.push(...r.failures);
   }
-  if (o.json) io.out(JSON.stringify({ measurements: results, failures }, null, 2) + '\n');
-  else io.out(measurementsText(results) + notesText(results) + failures.map((f) => `failed: ${f}\n`).join(''));
-  return results.length > 0 ? EXIT_OK : EXIT_MEASURE_FAILED;
+  if (o.json) io.out(JSON.stringify({ measurements: results, multiplets, failures }, null, 2) + '\n');
+  else {
+    const twoD = results.length > 0 ? measurementsText(results) + notesText(results) : '';
+    io.out(twoD + (multiplets.length > 0 ? (twoD ? '\n' : '') + multipletsText(multiplets) : '') + failures.map((f) => `failed: ${f}\n`).join(''));
+  }
+  return results.length + multiplets.length > 0 ? EXIT_OK : EXIT_MEASURE_FAILED;
 }
 
 export function buildProgram(io: CliIo, setCode: (code: number) => void): Command {
@@ -86,10 +103,12 @@ export function buildProgram(io: CliIo, setCode: (code: number) => void): Comman
 
   program
     .command('measure')
-    .description('J at the cross peak nearest a point, or at every cross peak (--all)')
-    .argument('<target>', 'JCAMP-DX DQF-COSY (a directory with --all)')
-    .option('--f2 <ppm>', 'F2 (direct) position, ppm', ppmArg)
+    .description('J at the cross peak nearest a point, or at every cross peak (--all); on a 1D spectrum, the multiplet analysis of a region')
+    .argument('<target>', 'JCAMP-DX DQF-COSY or 1D ¹H spectrum (a directory with --all)')
+    .option('--f2 <ppm>', 'F2 (direct) position, ppm; on a 1D spectrum, the multiplet there', ppmArg)
     .option('--f1 <ppm>', 'F1 (indirect) position, ppm', ppmArg)
+    .option('--from <ppm>', '1D: one end of the multiplet region, ppm', ppmArg)
+    .option('--to <ppm>', '1D: the other end of the multiplet region, ppm', ppmArg)
     .option('--all', 'measure every cross peak of the file, or of every file under a directory')
     .addOption(new Option('--method <method>', 'fit (model fit) or naive (antiphase peak distance, for comparison)').choices(['fit', 'naive']).default('fit'))
     .addOption(new Option('--dimension <dim>', 'dimension to measure in').choices(['F2', 'F1']).default('F2'))
