@@ -146,10 +146,14 @@ function pickLines(s: Spectrum1D, i0: number, i1: number, level: number, noise: 
   return out;
 }
 
-/** Full width at half height around point i, linear interpolation between points. */
-function widthAt(s: Spectrum1D, hz: number, height: number): number {
+/**
+ * Full width at half height around point i, linear interpolation between points; with `side`, twice
+ * the half width on that side only (the outer flank of an outermost line, where no other line blends in).
+ */
+function widthAt(s: Spectrum1D, hz: number, height: number, side?: 1 | -1): number {
   const d = s.data;
-  const i = Math.round((hz - s.axis.firstHz) / ((s.axis.lastHz - s.axis.firstHz) / (s.axis.points - 1)));
+  const x = (hz - s.axis.firstHz) / ((s.axis.lastHz - s.axis.firstHz) / (s.axis.points - 1));
+  const i = Math.round(x);
   const half = height / 2;
   const walk = (step: 1 | -1): number => {
     let j = i;
@@ -158,7 +162,8 @@ function widthAt(s: Spectrum1D, hz: number, height: number): number {
     const b = d[j + step] ?? 0;
     return j + (a === b ? 0 : (step * (a - half)) / (a - b));
   };
-  return Math.abs(walk(1) - walk(-1)) * resolutionHz(s.axis);
+  const points = side === undefined ? Math.abs(walk(1) - walk(-1)) : 2 * Math.abs(walk(side) - x);
+  return points * resolutionHz(s.axis);
 }
 
 /** Analyse the multiplet between two shifts of a 1D spectrum (see the module comment). */
@@ -191,7 +196,7 @@ export function analyseMultiplet(s: Spectrum1D, fromPpm: number, toPpm: number, 
   // Weaker maxima (4 noise sd, prominence 2 sd) only seed the lineshape fit, which decides whether they are lines.
   const weak = pickLines(s, i0, i1, Math.max(SEED_LEVEL_NOISE * noise, 0.02 * top), noise, SEED_LEVEL_NOISE / 2);
   // The outermost lines of a first-order multiplet are single lines; the tallest is often a blend.
-  const ends = [lines[0], lines[lines.length - 1]].map((l) => (l ? widthAt(s, l.hz, l.height) : Infinity));
+  const ends = [[lines[0], -1] as const, [lines[lines.length - 1], 1] as const].map(([l, side]) => (l ? widthAt(s, l.hz, l.height, side) : Infinity));
   const shape = opts.lineshape === false ? null : analyseLineshape(s, {
     i0, i1, noise, lines, weakLines: weak.map((l) => l.hz), linewidthHz: Math.min(linewidthHz, ...ends), maximaTree: tree,
     partners: partners.filter((p) => p.jHz !== undefined).map((p) => ({ jHz: Math.abs(p.jHz ?? 0), count: p.count ?? 1 })),

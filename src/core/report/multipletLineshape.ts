@@ -145,7 +145,7 @@ function searchLineshape(s: Spectrum1D, inp: LineshapeInput): LineshapeResult | 
     spanned.push(...spans.trees.map((tree) => ({ tree, centreHz: spans.centreHz })));
   }
   seeds.push(...bestSeeds(ctx, spanned, w0, SPAN_SEEDS));
-  const found = searchTrees(ctx, seeds, w0, MAX_FWHM_FACTOR * inp.linewidthHz + 1);
+  const found = searchTrees(ctx, seeds, w0, MAX_FWHM_FACTOR * inp.linewidthHz + 1, inp.linewidthHz);
   if (!found) return null;
   // Two equal lines closer than w/√3 show one maximum (derived: the second derivative at the midpoint), so
   // nearly equal couplings (within a fifth of their size) that differ by less than that are written as one group.

@@ -122,7 +122,7 @@ export function neighbours(t: TreeSpec, fwhmHz: number): TreeSpec[] {
  * The best tree by the information criterion, or null when no seed gives a plausible fit. Trees are
  * screened by short fits; only the most promising are fitted to convergence and checked for plausibility.
  */
-export function searchTrees(ctx: FitContext, seeds: readonly Seed[], width0: number, maxFwhmHz: number): SearchResult | null {
+export function searchTrees(ctx: FitContext, seeds: readonly Seed[], width0: number, maxFwhmHz: number, fwhm0Hz: number): SearchResult | null {
   const seen = new Set<string>();
   let tried = 0;
   const screen = (ts: readonly { tree: TreeSpec; centreHz: number; width: number }[]): QuickFit[] => {
@@ -162,7 +162,10 @@ export function searchTrees(ctx: FitContext, seeds: readonly Seed[], width0: num
     let cur = firstGood(screened.slice(k), Infinity, 1);
     for (let round = 0; cur && round < MAX_ROUNDS; round++) {
       const c = cur;
-      const next = firstGood(screen(neighbours(treeOfFit(c), c.fwhmHz).map((tree) => ({ tree, centreHz: c.centreHz, width: c.widthParam }))), c.criterion, 2);
+      // A poor tree fits with lines too broad; its neighbours start from the width the data show, and small J scale with it.
+      const width = c.fwhmHz > fwhm0Hz ? width0 : c.widthParam;
+      const near = neighbours(treeOfFit(c), Math.min(c.fwhmHz, fwhm0Hz));
+      const next = firstGood(screen(near.map((tree) => ({ tree, centreHz: c.centreHz, width }))), c.criterion, 2);
       if (!next) break;
       cur = next;
     }
