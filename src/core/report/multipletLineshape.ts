@@ -141,7 +141,7 @@ function searchLineshape(s: Spectrum1D, inp: LineshapeInput): LineshapeResult | 
   const enhanced = enhancedLines(ctx.region.freqs, ctx.region.data, inp.linewidthHz, ctx.sigma);
   const spanned: Seed[] = [];
   for (const positions of [inp.lines.map((l) => l.hz), union(inp.weakLines, enhanced, inp.linewidthHz / 4)]) {
-    const spans = spanSeeds(positions, Math.max(0.3, 0.6 * inp.linewidthHz), inp.linewidthHz / 6);
+    const spans = spanSeeds(positions, Math.max(0.3, 0.6 * inp.linewidthHz), inp.linewidthHz / 6, inp.linewidthHz);
     spanned.push(...spans.trees.map((tree) => ({ tree, centreHz: spans.centreHz })));
   }
   seeds.push(...bestSeeds(ctx, spanned, w0, SPAN_SEEDS));
