@@ -1,6 +1,6 @@
 /**
  * Glue between analyseMultiplet and the lineshape fit: the fit window and line model of a 1D
- * spectrum, the seed trees (line maxima, known COSY partners, a singlet), the search, and the
+ * spectrum, the seed trees (line maxima, known COSY partners, outer-line distances, a singlet), the search, and the
  * couplings written the way chemists write nearly equal ones (one t/q group with their mean).
  */
 import { correlationFromProcessing, estimateCorrelation, type NoiseCorrelation } from '../measure/correlation';
@@ -20,7 +20,7 @@ const MAX_LAG = 32;
 const SPAN_SEEDS = 6;
 /** Couplings differing by less than this fraction of their mean (and unresolved) are one group. */
 const NEARLY_EQUAL = 0.2;
-/** Fitted lines may be at most this many times the width measured at the tallest maximum (plus 1 Hz). */
+/** Fitted lines may be at most this many times the linewidth seen at the outer lines (plus 1 Hz). */
 const MAX_FWHM_FACTOR = 3;
 
 export interface LineshapeInput {
@@ -30,6 +30,7 @@ export interface LineshapeInput {
   lines: readonly ObservedLine[];
   /** Positions (Hz) of weaker maxima, for seeding only. */
   weakLines: readonly number[];
+  /** FWHM (Hz) seen at the outer flanks of the outermost lines (single lines in a first-order multiplet). */
   linewidthHz: number;
   maximaTree: TreeFit | null;
   /** Known couplings (|J|, equivalent protons) of the atom, e.g. from the DQF-COSY. */
