@@ -5,7 +5,7 @@
  * validated with `parseFromWebview` / `parseToWebview` before use: a webview is a separate
  * process and a stale or damaged message must not reach the host's logic.
  */
-import { isMeasurementView, isNum, isObj, isPeakView, isSidecarView, isSpectrumMeta, isStr, isStrList } from './protocolShapes';
+import { isMeasurementView, isMultipletView, isNum, isObj, isPeakView, isSidecarView, isSpectrumMeta, isStr, isStrList } from './protocolShapes';
 
 /** One axis as the webview needs it (ppm = Hz / observeMhz). */
 export interface AxisMeta {
@@ -70,6 +70,11 @@ export interface PickView {
   readonly f1Ppm?: number;
   readonly label: readonly string[];
   readonly kind?: 'cross' | 'diagonal' | 'multiplet';
+  /** 1D multiplet: the region the chemist set (high, low ppm), when set. */
+  readonly fromPpm?: number;
+  readonly toPpm?: number;
+  /** 1D multiplet: this pick is the integral reference and holds that many protons. */
+  readonly protons?: number;
 }
 
 export interface CouplingView {
@@ -111,6 +116,47 @@ export interface MeasurementView {
   readonly traces: readonly TraceView[];
 }
 
+/** One COSY value checked against the 1D splitting nearest to it. */
+export interface CosyCheckView {
+  readonly partner: string;
+  readonly cosyJHz: number;
+  readonly cosySdHz: number;
+  readonly oneDJHz: number;
+  readonly oneDSdHz: number;
+  readonly agrees: boolean;
+}
+
+/** The analysis of a 1D multiplet as the panel shows it (multipletView.ts builds it on the host). */
+export interface MultipletView {
+  readonly peakIndex: number;
+  /** The sidecar pick on this multiplet, if any. */
+  readonly pickId: string | null;
+  readonly label: readonly string[];
+  readonly centrePpm: number;
+  /** The region analysed, high then low ppm; `regionSet` true when it is the pick's own, false when automatic. */
+  readonly fromPpm: number;
+  readonly toPpm: number;
+  readonly regionSet: boolean;
+  readonly integral: number;
+  /** Protons relative to the reference pick; null without a reference. */
+  readonly protons: number | null;
+  /** e.g. `reference p-1.1700 (H-7) = 3 H`, `this pick is the reference (3 H)`, or `no reference`. */
+  readonly reference: string;
+  readonly multiplicity: string;
+  /** Reportable couplings (empty when a flag says a first-order J would be wrong). */
+  readonly couplings: readonly { readonly jHz: number; readonly sdHz: number; readonly count: number }[];
+  readonly flags: readonly string[];
+  /** Plain-language notes: each flag explained, then the analysis's own notes. */
+  readonly notes: readonly string[];
+  readonly cosy: readonly CosyCheckView[];
+  /** Partners whose COSY J was looked up (atom labels), so the panel can say when there were none. */
+  readonly partners: readonly string[];
+  /** Fitted line positions (ppm), for ticks over the trace; empty without a fit. */
+  readonly linesPpm: readonly number[];
+  /** The fitted lineshape (model plus baseline) over the region, when there is a fit. */
+  readonly fitted: { readonly fromPpm: number; readonly toPpm: number; readonly data: Float32Array } | null;
+}
+
 // ---- host -> webview ------------------------------------------------------------------------
 
 /** Answer to `ready`: everything needed to draw the first frame. */
@@ -145,6 +191,13 @@ export interface MeasuredMessage {
   readonly type: 'measured';
   readonly inReplyTo: number;
   readonly measurement: MeasurementView;
+}
+
+/** Reply to `analyse`: the 1D multiplet's analysis. */
+export interface AnalysedMessage {
+  readonly type: 'analysed';
+  readonly inReplyTo: number;
+  readonly analysis: MultipletView;
 }
 
 export interface ProgressMessage {
@@ -194,7 +247,7 @@ export interface CompareMessage {
   readonly marks: readonly ReviewMarkView[];
 }
 
-export type ToWebview = InitMessage | TileMessage | SidecarMessage | MeasuredMessage | ProgressMessage | ErrorMessage | CommandMessage | SettingsMessage | CompareMessage;
+export type ToWebview = InitMessage | TileMessage | SidecarMessage | MeasuredMessage | AnalysedMessage | ProgressMessage | ErrorMessage | CommandMessage | SettingsMessage | CompareMessage;
 
 // ---- webview -> host ------------------------------------------------------------------------
 
@@ -245,11 +298,29 @@ export interface MeasureAllRequest {
   readonly method: 'fit' | 'naive';
 }
 
+/** 1D: analyse the multiplet (also tells the host which multiplet the palette commands act on). */
+export interface AnalyseRequest {
+  readonly type: 'analyse';
+  readonly id: number;
+  readonly peakIndex: number;
+}
+
+/**
+ * 1D: set a multiplet region (Shift+drag). `peakIndex` is the multiplet whose pick gets it (a new
+ * pick when it has none); null makes a new pick inside the region.
+ */
+export interface SetRegionRequest {
+  readonly type: 'setRegion';
+  readonly peakIndex: number | null;
+  readonly fromPpm: number;
+  readonly toPpm: number;
+}
+
 export interface CancelRequest {
   readonly type: 'cancel';
 }
 
-export type FromWebview = ReadyMessage | TileRequest | MeasureRequest | AcceptRequest | LabelRequest | RemovePickRequest | MeasureAllRequest | CancelRequest;
+export type FromWebview = ReadyMessage | TileRequest | MeasureRequest | AcceptRequest | LabelRequest | RemovePickRequest | MeasureAllRequest | AnalyseRequest | SetRegionRequest | CancelRequest;
 
 // ---- validation -----------------------------------------------------------------------------
 
@@ -290,6 +361,9 @@ const FROM_WEBVIEW: Record<FromWebview['type'], (m: Obj) => string | null> = {
   label: (m) => (!isStr(m.pickId) ? 'pickId' : !isStrList(m.labels) ? 'labels' : null),
   removePick: (m) => (!isStr(m.pickId) ? 'pickId' : null),
   measureAll: (m) => (!isMethod(m.method) ? 'method' : null),
+  analyse: (m) => (!isNonNegInt(m.id) ? 'id' : !isNonNegInt(m.peakIndex) ? 'peakIndex' : null),
+  setRegion: (m) => (!(m.peakIndex === null || isNonNegInt(m.peakIndex)) ? 'peakIndex' : !isNum(m.fromPpm) ? 'fromPpm'
+    : !(isNum(m.toPpm) && m.toPpm !== m.fromPpm) ? 'toPpm' : null),
   cancel: () => null,
 };
 
@@ -319,6 +393,7 @@ const TO_WEBVIEW: Record<ToWebview['type'], (m: Obj) => string | null> = {
   tile: (m) => (!isNonNegInt(m.inReplyTo) ? 'inReplyTo' : !isRegion(m.region) ? 'region' : !isPosInt(m.rows) ? 'rows' : !isPosInt(m.cols) ? 'cols' : !(m.data instanceof Float32Array) || m.data.length !== (m.rows as number) * (m.cols as number) ? 'data' : null),
   sidecar: (m) => (!isSidecarView(m.sidecar) ? 'sidecar' : null),
   measured: (m) => (!isNonNegInt(m.inReplyTo) ? 'inReplyTo' : !isMeasurementView(m.measurement) ? 'measurement' : null),
+  analysed: (m) => (!isNonNegInt(m.inReplyTo) ? 'inReplyTo' : !isMultipletView(m.analysis) ? 'analysis' : null),
   progress: (m) => (!isStr(m.task) ? 'task' : !isNonNegInt(m.done) ? 'done' : !isNonNegInt(m.total) ? 'total' : null),
   error: (m) => (!isStr(m.message) ? 'message' : !(m.cancelled === undefined || m.cancelled === true) ? 'cancelled' : null),
   command: (m) => (!(isStr(m.command) && Object.hasOwn(PANEL_COMMANDS, m.command)) ? 'command' : null),

@@ -4,7 +4,7 @@
  * stale or damaged message is refused with the field named instead of failing later in a frame.
  * Pure; no DOM and no vscode, so the host, the webview and the tests share it.
  */
-import type { AxisMeta, MeasurementView, PeakView, PickView, SidecarView, SpectrumMeta, TraceView, CouplingView } from './protocol';
+import type { AxisMeta, CosyCheckView, MeasurementView, MultipletView, PeakView, PickView, SidecarView, SpectrumMeta, TraceView, CouplingView } from './protocol';
 
 type Obj = Record<string, unknown>;
 
@@ -36,7 +36,8 @@ export function isPeakView(v: unknown): v is PeakView {
 }
 
 function isPickView(v: unknown): v is PickView {
-  return isObj(v) && isStr(v.id) && isNum(v.f2Ppm) && isOptNum(v.f1Ppm) && isStrList(v.label) && (v.kind === undefined || PEAK_KINDS.includes(v.kind));
+  return isObj(v) && isStr(v.id) && isNum(v.f2Ppm) && isOptNum(v.f1Ppm) && isStrList(v.label) && (v.kind === undefined || PEAK_KINDS.includes(v.kind))
+    && isOptNum(v.fromPpm) && isOptNum(v.toPpm) && isOptNum(v.protons);
 }
 
 function isCouplingView(v: unknown): v is CouplingView {
@@ -57,4 +58,22 @@ export function isMeasurementView(v: unknown): v is MeasurementView {
   return isObj(v) && isInt(v.peakIndex) && v.peakIndex >= 0 && isNum(v.jHz) && isAnyNum(v.jSdHz) && listOf(v.passiveHz, isAnyNum)
     && isAnyNum(v.linewidthHz) && (v.method === 'fit' || v.method === 'naive') && (v.dimension === 'F2' || v.dimension === 'F1')
     && isStrList(v.flags) && isStrList(v.notes) && listOf(v.traces, isTrace);
+}
+
+function isCosyCheck(v: unknown): v is CosyCheckView {
+  return isObj(v) && isStr(v.partner) && isNum(v.cosyJHz) && isAnyNum(v.cosySdHz) && isNum(v.oneDJHz) && isAnyNum(v.oneDSdHz) && typeof v.agrees === 'boolean';
+}
+
+const isGroup = (v: unknown): boolean => isObj(v) && isNum(v.jHz) && isAnyNum(v.sdHz) && isInt(v.count) && v.count > 0;
+
+function isFitted(v: unknown): boolean {
+  return v === null || (isObj(v) && isNum(v.fromPpm) && isNum(v.toPpm) && v.data instanceof Float32Array);
+}
+
+export function isMultipletView(v: unknown): v is MultipletView {
+  return isObj(v) && isInt(v.peakIndex) && v.peakIndex >= 0 && (v.pickId === null || isStr(v.pickId)) && isStrList(v.label)
+    && isNum(v.centrePpm) && isNum(v.fromPpm) && isNum(v.toPpm) && typeof v.regionSet === 'boolean' && isAnyNum(v.integral)
+    && (v.protons === null || isAnyNum(v.protons)) && isStr(v.reference) && isStr(v.multiplicity)
+    && Array.isArray(v.couplings) && v.couplings.every(isGroup) && isStrList(v.flags) && isStrList(v.notes)
+    && listOf(v.cosy, isCosyCheck) && isStrList(v.partners) && listOf(v.linesPpm, isNum) && isFitted(v.fitted);
 }

@@ -4,6 +4,7 @@
  */
 import * as vscode from 'vscode';
 import type { CommandMessage } from '../protocol';
+import { registerMultipletCommands } from './multipletCommands';
 import { compareWith } from './review/compareCommand';
 import { readSettings } from './settings';
 import { VIEW_TYPE, type OpenPanel, type SpectrumEditorProvider } from './spectrumEditor';
@@ -76,6 +77,7 @@ export function registerCommands(provider: SpectrumEditorProvider, output: vscod
       if (answer === 'Record New Hash') await p.session.recordDataHash();
     })),
     vscode.commands.registerCommand('couplet.compareWith', () => withPanel((p) => compareWith(p))),
+    ...registerMultipletCommands(withPanel),
     vscode.commands.registerCommand('couplet.acceptAt', (args: unknown) => withPanel(async (p) => {
       if (!isAcceptAtArgs(args)) throw new Error('couplet.acceptAt needs { f2Ppm, f1Ppm?, labels?, method?, dimension? }');
       const index = nearestPeakIndex(p.session.model, args.f2Ppm, args.f1Ppm);

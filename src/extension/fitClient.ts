@@ -6,7 +6,8 @@
  */
 import type { CrossPeakInput, Measurement, MeasureOptions } from '../core/measure';
 import { sharedCopy } from './sharedData';
-import type { FromWorker, OpenReply, SpectrumTransfer, ToWorker } from './workerMessages';
+import type { MultipletAnalysis, MultipletOptions } from '../core/report/multiplet';
+import type { FromWorker, OpenReply, Spectrum1DTransfer, SpectrumTransfer, ToWorker } from './workerMessages';
 
 /** What the client needs of a node `Worker` (tests may pass a fake). */
 export interface WorkerLike {
@@ -32,19 +33,26 @@ interface Pending {
   reject(e: Error): void;
 }
 
-type Request = { readonly type: 'measure'; readonly peak: CrossPeakInput; readonly options: MeasureOptions } | { readonly type: 'open'; readonly text: string; readonly fileName: string };
+type Request = { readonly type: 'measure'; readonly peak: CrossPeakInput; readonly options: MeasureOptions } | { readonly type: 'open'; readonly text: string; readonly fileName: string }
+  | { readonly type: 'analyse'; readonly fromPpm: number; readonly toPpm: number; readonly options: MultipletOptions };
+
+/** The spectrum a client loads into its workers: 2D (fits) or 1D (multiplet analyses). */
+export type Loaded = { readonly dims: 2; readonly spectrum: SpectrumTransfer } | { readonly dims: 1; readonly spectrum: Spectrum1DTransfer };
 
 export class FitClient {
   private worker: WorkerLike | null = null;
   private nextId = 1;
   private readonly pending = new Map<number, Pending>();
-  private readonly spectrum: SpectrumTransfer | null;
+  private readonly spectrum: Loaded | null;
   /** After dispose no worker is started again (a request arriving late would otherwise leak one). */
   private disposed = false;
 
   /** `spectrum` is loaded into every worker this client starts (null for a client that only opens files). */
-  constructor(private readonly spawn: () => WorkerLike, spectrum: SpectrumTransfer | null) {
-    this.spectrum = spectrum && { ...spectrum, data: sharedCopy(spectrum.data) };
+  constructor(private readonly spawn: () => WorkerLike, spectrum: SpectrumTransfer | Loaded | null) {
+    const loaded: Loaded | null = spectrum === null ? null : 'dims' in spectrum ? spectrum : { dims: 2, spectrum };
+    this.spectrum = loaded && (loaded.dims === 2
+      ? { dims: 2, spectrum: { ...loaded.spectrum, data: sharedCopy(loaded.spectrum.data) } }
+      : { dims: 1, spectrum: { ...loaded.spectrum, data: sharedCopy(loaded.spectrum.data) } });
   }
 
   /** Number of requests sent and not yet answered. */
@@ -56,6 +64,13 @@ export class FitClient {
     const r = await this.request({ type: 'measure', peak, options });
     if (r.type !== 'measured') throw new Error(`fit worker: expected a measurement, got "${r.type}"`);
     return r.measurement;
+  }
+
+  /** The 1D multiplet analysis between two shifts (the client must have been given a 1D spectrum). */
+  async analyse(fromPpm: number, toPpm: number, options: MultipletOptions): Promise<MultipletAnalysis> {
+    const r = await this.request({ type: 'analyse', fromPpm, toPpm, options });
+    if (r.type !== 'analysed') throw new Error(`worker: expected a multiplet analysis, got "${r.type}"`);
+    return r.analysis;
   }
 
   async open(text: string, fileName: string): Promise<OpenReply> {
@@ -115,7 +130,7 @@ export class FitClient {
       this.worker = null;
       this.rejectAll(new Error(`the fit worker stopped unexpectedly (exit code ${code})`));
     });
-    if (this.spectrum) w.postMessage({ type: 'load', spectrum: this.spectrum });
+    if (this.spectrum) w.postMessage(this.spectrum.dims === 2 ? { type: 'load', spectrum: this.spectrum.spectrum } : { type: 'load1D', spectrum: this.spectrum.spectrum });
     return w;
   }
 

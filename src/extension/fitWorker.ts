@@ -5,12 +5,14 @@
  */
 import { parentPort } from 'node:worker_threads';
 import { MeasureError, measureCrossPeak } from '../core/measure';
-import { make2D, type Spectrum, type Spectrum2D } from '../core/spectrum/spectrum';
+import { analyseMultiplet } from '../core/report/multiplet';
+import { make1D, make2D, type Spectrum, type Spectrum1D, type Spectrum2D } from '../core/spectrum/spectrum';
 import { sharedCopy } from './sharedData';
 import { loadSpectrumModel } from './spectrumModel';
 import type { FromWorker, ToWorker } from './workerMessages';
 
 let spectrum: Spectrum2D | null = null;
+let spectrum1D: Spectrum1D | null = null;
 
 /** The same spectrum with its data moved to shared memory (the reply then shares instead of copying). */
 function shared(s: Spectrum): Spectrum {
@@ -26,6 +28,17 @@ export function handle(m: ToWorker): FromWorker | null {
     case 'load':
       spectrum = make2D(m.spectrum.title, m.spectrum.data, m.spectrum.f1, m.spectrum.f2, m.spectrum.processing);
       return null;
+    case 'load1D':
+      spectrum1D = make1D(m.spectrum.title, m.spectrum.data, m.spectrum.axis, m.spectrum.processing);
+      return null;
+    case 'analyse':
+      if (spectrum1D === null) return { type: 'failed', inReplyTo: m.id, message: 'the worker has no 1D spectrum loaded', expected: false };
+      try {
+        return { type: 'analysed', inReplyTo: m.id, analysis: analyseMultiplet(spectrum1D, m.fromPpm, m.toPpm, m.options) };
+      } catch (e) {
+        // A region too narrow or outside the data is the user's input, not a bug.
+        return e instanceof RangeError ? { type: 'failed', inReplyTo: m.id, message: e.message, expected: true } : failed(m.id, e);
+      }
     case 'open':
       try {
         // The hash is not needed here; the host computed it from the same bytes.

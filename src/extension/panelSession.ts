@@ -8,6 +8,8 @@ import { applyEdits, setDataHash } from '../core/sidecar';
 import { parseFromWebview, type FromWebview, type ToWebview, type ViewSettings } from '../protocol';
 import { CancelledError, FitFailedError } from './fitClient';
 import { measureAll, type MeasureAllSummary } from './measureAll';
+import type { SidecarSource } from './multipletPartners';
+import { MultipletSession, type Analyser } from './multipletSession';
 import { couplingValues, measurementView } from './measurementView';
 import { acceptText, labelText, removePickText, type CouplingValues } from './sidecarActions';
 import { sidecarState, type SidecarState } from './sidecarState';
@@ -47,6 +49,9 @@ export interface SessionPorts {
   withProgress<T>(title: string, work: (report: (done: number, total: number) => void, token: CancelToken) => Promise<T>): Promise<T>;
   /** Called after `init` was posted: a (re)loaded webview has forgotten what else the host had shown. */
   afterInit?(): void;
+  /** 1D: the multiplet analysis (the worker) and the compound's other sidecars (COSY J of the partners). */
+  analyser?: Analyser;
+  folderSidecars?(): Promise<SidecarSource[]>;
 }
 
 type Method = 'fit' | 'naive';
@@ -63,7 +68,16 @@ export class PanelSession {
   /** Set when the panel closed: its webview is gone, so nothing is posted and running batches end. */
   private disposed = false;
 
-  constructor(readonly model: SpectrumModel, private readonly store: SidecarStore, private readonly measurer: Measurer, private readonly ports: SessionPorts) {}
+  /** 1D spectra: analysis of the selected multiplet, regions and the integral reference. */
+  readonly multiplet: MultipletSession | null;
+
+  constructor(readonly model: SpectrumModel, private readonly store: SidecarStore, private readonly measurer: Measurer, private readonly ports: SessionPorts) {
+    const analyser = ports.analyser;
+    this.multiplet = model.spectrum.dims === 1 && analyser ? new MultipletSession(model, store, {
+      analyser, folderSidecars: () => ports.folderSidecars?.() ?? Promise.resolve([]), post: (m) => this.post(m),
+      edit: (label, change) => this.edit(label, change), refuse: (m) => this.refuse(m),
+    }) : null;
+  }
 
   state(): SidecarState {
     return sidecarState(this.store.text(), this.store.fileName, this.model.sha256);
@@ -120,6 +134,9 @@ export class PanelSession {
       case 'label': await this.edit(`Label ${m.pickId}`, (t) => labelText(this.existing(t), this.store.fileName, m.pickId, m.labels, this.pending.get(m.pickId))); return;
       case 'removePick': await this.removePick(m.pickId); return;
       case 'measureAll': await this.measureAll(m.method); return;
+      case 'analyse': return this.multiplet ? this.multiplet.analyse(m.id, m.peakIndex)
+        : this.post({ type: 'error', inReplyTo: m.id, message: `${this.model.fileName} is not a 1D spectrum: multiplets are analysed in a 1D ¹H spectrum` });
+      case 'setRegion': await (this.multiplet?.setRegion(m.peakIndex, { fromPpm: m.fromPpm, toPpm: m.toPpm }) ?? this.refuse(`${this.model.fileName} is not a 1D spectrum`)); return;
       case 'cancel': this.cancels++; this.measurer.cancel(); return;
     }
   }
@@ -159,7 +176,7 @@ export class PanelSession {
 
   /** The cross peak a request names, or a message saying why it cannot be measured. */
   private crossPeak(index: number): CrossPeakInput | string {
-    if (this.model.spectrum.dims !== 2) return `${this.model.fileName} is a 1D spectrum: J is measured at DQF-COSY cross peaks; the multiplet can still be picked and labelled`;
+    if (this.model.spectrum.dims !== 2) return `${this.model.fileName} is a 1D spectrum: J is measured at DQF-COSY cross peaks; select a multiplet to see its analysis, and pick and label it`;
     const p = this.model.crossPeaks[index];
     if (!p) return `${this.model.fileName} has no peak ${index} (${this.model.crossPeaks.length} peaks picked)`;
     if (p.kind !== 'cross') return `peak ${index} at F2 ${p.f2Ppm.toFixed(4)} / F1 ${p.f1Ppm.toFixed(4)} ppm is a diagonal peak; J is measured at cross peaks`;

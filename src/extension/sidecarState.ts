@@ -34,6 +34,8 @@ export function sidecarState(text: string | null, fileName: string, dataSha256: 
       id: p.id, f2Ppm: p.f2Ppm, label: [...p.label],
       ...(p.f1Ppm !== undefined && { f1Ppm: p.f1Ppm }),
       ...(p.kind !== undefined && { kind: p.kind }),
+      ...(p.fromPpm !== undefined && p.toPpm !== undefined && { fromPpm: p.fromPpm, toPpm: p.toPpm }),
+      ...(p.protons !== undefined && { protons: p.protons }),
     })),
     couplings: (sidecar?.couplings ?? []).map((c) => ({
       atoms: [c.atoms[0], c.atoms[1]], jHz: c.jHz, jSdHz: c.jSdHz, method: c.method, dimension: c.dimension,

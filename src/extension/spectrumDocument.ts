@@ -16,7 +16,7 @@ export class SpectrumDocument implements vscode.CustomDocument {
     /** Why the file could not be read (file:line), when `model` is null. */
     readonly loadError: string | null,
     readonly store: VsSidecarStore,
-    /** Fits for 2D spectra; null for 1D. */
+    /** The worker client: cross-peak fits (2D) or multiplet analyses (1D); null when the file could not be read. */
     readonly fits: FitClient | null,
     private readonly log: (message: string) => void,
   ) {}
@@ -35,7 +35,10 @@ export class SpectrumDocument implements vscode.CustomDocument {
       const r = await loader.open(text, fileName);
       const model: SpectrumModel = { fileName, sha256, spectrum: r.spectrum, noise: r.noise, crossPeaks: r.crossPeaks, multiplets: r.multiplets };
       const s = r.spectrum;
-      const fits = s.dims === 2 ? new FitClient(spawn, { title: s.title, data: s.data, f1: s.f1, f2: s.f2, ...(s.processing && { processing: s.processing }) }) : null;
+      // 2D: cross-peak fits; 1D: multiplet analyses (a lineshape search can take seconds).
+      const fits = s.dims === 2
+        ? new FitClient(spawn, { title: s.title, data: s.data, f1: s.f1, f2: s.f2, ...(s.processing && { processing: s.processing }) })
+        : new FitClient(spawn, { dims: 1, spectrum: { title: s.title, data: s.data, axis: s.axis, ...(s.processing && { processing: s.processing }) } });
       return new SpectrumDocument(uri, model, null, store, fits, log);
     } catch (e) {
       const message = e instanceof Error ? e.message : String(e);

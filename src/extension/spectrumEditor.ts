@@ -14,6 +14,7 @@ import { readSettings } from './settings';
 import { sidecarState } from './sidecarState';
 import { SpectrumDocument } from './spectrumDocument';
 import { errorHtml, localRoots, spectrumHtml } from './webviewHtml';
+import { folderSidecars } from './folderSidecars';
 import { workspaceLabels } from './workspaceLabels';
 
 export const VIEW_TYPE = 'couplet.spectrum';
@@ -96,7 +97,14 @@ export class SpectrumEditorProvider implements vscode.CustomEditorProvider<Spect
     };
     const overlay = new CompareOverlay(store.fileName, store.text, (m) => void panel.webview.postMessage(m));
     // A webview restored after being hidden starts again with `ready`: after its init, the overlay comes back.
-    const session = new PanelSession(document.model, store, document.fits ?? noMeasurer, { ...this.ports(panel), afterInit: () => overlay.restored() });
+    const oneD = document.model.spectrum.dims === 1;
+    const session = new PanelSession(document.model, store, document.fits ?? noMeasurer, {
+      ...this.ports(panel), afterInit: () => overlay.restored(),
+      ...(oneD && document.fits && { analyser: document.fits, folderSidecars: () => folderSidecars(document.uri, store.fileName) }),
+    });
+    // `when` clauses of the 1D commands (region, integral reference).
+    const setOneD = (): void => void vscode.commands.executeCommand('setContext', 'couplet.spectrum1D', oneD);
+    setOneD();
     const entry: OpenPanel = { document, panel, session, overlay };
     this.panels.add(entry);
     this.lastActive = entry;
@@ -110,7 +118,9 @@ export class SpectrumEditorProvider implements vscode.CustomEditorProvider<Spect
         if (e.affectsConfiguration('couplet')) session.settingsChanged();
       }),
       panel.onDidChangeViewState((e) => {
-        if (e.webviewPanel.active) this.lastActive = entry;
+        if (!e.webviewPanel.active) return;
+        this.lastActive = entry;
+        setOneD();
       }),
     ];
     panel.onDidDispose(() => {

@@ -5,7 +5,8 @@
 import type { CrossPeakInput, Measurement, MeasureOptions } from '../core/measure';
 import type { CrossPeak, Multiplet1D } from '../core/peaks';
 import type { Axis } from '../core/spectrum/axis';
-import type { Spectrum, Spectrum2D } from '../core/spectrum/spectrum';
+import type { MultipletAnalysis, MultipletOptions } from '../core/report/multiplet';
+import type { Spectrum, Spectrum1D, Spectrum2D } from '../core/spectrum/spectrum';
 
 /** The spectrum as the worker receives it; `data` is best a view on a SharedArrayBuffer (no copy per worker). */
 export interface SpectrumTransfer {
@@ -20,6 +21,28 @@ export interface SpectrumTransfer {
 export interface LoadMessage {
   readonly type: 'load';
   readonly spectrum: SpectrumTransfer;
+}
+
+/** A 1D spectrum, sent once after the worker starts instead of `load`; no reply. */
+export interface Load1DMessage {
+  readonly type: 'load1D';
+  readonly spectrum: Spectrum1DTransfer;
+}
+
+export interface Spectrum1DTransfer {
+  readonly title: string;
+  readonly data: Float64Array;
+  readonly axis: Axis;
+  readonly processing?: Spectrum1D['processing'];
+}
+
+/** Analyse the 1D multiplet between two shifts (lineshape fit: up to a few seconds). */
+export interface AnalyseRequest {
+  readonly type: 'analyse';
+  readonly id: number;
+  readonly fromPpm: number;
+  readonly toPpm: number;
+  readonly options: MultipletOptions;
 }
 
 export interface FitRequest {
@@ -37,12 +60,18 @@ export interface OpenRequest {
   readonly fileName: string;
 }
 
-export type ToWorker = LoadMessage | FitRequest | OpenRequest;
+export type ToWorker = LoadMessage | Load1DMessage | FitRequest | AnalyseRequest | OpenRequest;
 
 export interface FitReply {
   readonly type: 'measured';
   readonly inReplyTo: number;
   readonly measurement: Measurement;
+}
+
+export interface AnalyseReply {
+  readonly type: 'analysed';
+  readonly inReplyTo: number;
+  readonly analysis: MultipletAnalysis;
 }
 
 /** `expected` is true for a MeasureError (nothing to measure there), false for a bug. */
@@ -63,4 +92,4 @@ export interface OpenReply {
   readonly multiplets: Multiplet1D[];
 }
 
-export type FromWorker = FitReply | FitFailed | OpenReply;
+export type FromWorker = FitReply | AnalyseReply | FitFailed | OpenReply;

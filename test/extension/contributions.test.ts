@@ -95,7 +95,7 @@ describe('editor contributions', () => {
 
   it('has every contributed command registered by the code, and no registered command left undeclared', () => {
     const declared = pkg.contributes.commands.map((c) => c.command).sort();
-    const code = source('commands.ts') + source('notes/insertSiCommand.ts');
+    const code = source('commands.ts') + source('notes/insertSiCommand.ts') + source('multipletCommands.ts');
     const panel = [...code.matchAll(/'(nextPeak|previousPeak|measure|accept|label|removePick|zoomToPeak|resetZoom)'/g)].map((m) => `couplet.${m[1]}`);
     const direct = [...code.matchAll(/registerCommand\('(couplet\.\w+)'/g)].map((m) => m[1]);
     expect([...new Set([...panel, ...direct])].sort()).toEqual(declared);
@@ -107,9 +107,17 @@ describe('editor contributions', () => {
     expect(pkg.contributes.menus.commandPalette?.find((m) => m.command === 'couplet.removePick')?.when).toBe('activeCustomEditorId == couplet.spectrum');
   });
 
-  it('scopes every keybinding to the spectrum editor', () => {
+  it('scopes every keybinding to the spectrum editor (1D-only commands to a 1D spectrum)', () => {
     expect(pkg.contributes.keybindings.length).toBeGreaterThanOrEqual(7);
-    for (const k of pkg.contributes.keybindings) expect(k.when).toBe('activeCustomEditorId == couplet.spectrum');
+    for (const k of pkg.contributes.keybindings) expect(k.when).toMatch(/^activeCustomEditorId == couplet\.spectrum( && couplet\.spectrum1D)?$/);
+  });
+
+  it('offers the region and reference commands only on a 1D spectrum, a context key the editor sets', () => {
+    const oneD = ['setMultipletRegion', 'clearMultipletRegion', 'setIntegralReference', 'clearIntegralReference'];
+    for (const c of oneD) {
+      expect(pkg.contributes.menus.commandPalette?.find((m) => m.command === `couplet.${c}`)?.when).toBe('activeCustomEditorId == couplet.spectrum && couplet.spectrum1D');
+    }
+    expect(source('spectrumEditor.ts')).toContain(`'setContext', 'couplet.spectrum1D'`);
   });
 
   it('hides the test-only acceptAt command from the palette', () => {
