@@ -3,7 +3,7 @@
  * the screen position of a place in ppm. No DOM, so hit testing (hitTest.ts) is tested in Node;
  * plot.ts draws it.
  */
-import type { PeakView, PickView, ReviewMarkView, SpectrumMeta } from '../src/protocol';
+import type { MultipletView, PeakView, PickView, ReviewMarkView, SpectrumMeta } from '../src/protocol';
 import type { CacheEntry } from './contourCache';
 import { xScale, yScale, type Size, type View } from './scales';
 
@@ -34,6 +34,8 @@ export interface Frame {
   /** Changes since another revision (review.ts), and the one in focus. */
   readonly marks?: readonly ReviewMarkView[];
   readonly markFocus?: number | null;
+  /** 1D: the selected multiplet's analysis (region band, fitted curve, line positions). */
+  readonly multiplet?: MultipletView | null;
 }
 
 /** Screen position (CSS px, canvas coordinates) of a peak or pick; 1D markers sit near the top. */

@@ -1,7 +1,8 @@
 /**
- * Pointer, wheel and keyboard input on the plot canvas. Drag pans; Shift+drag draws a zoom box;
- * the wheel zooms around the cursor (1D: along F2; Shift+wheel: intensity); a click snaps to the
- * nearest cross peak and measures it. Keys go through keys.ts.
+ * Pointer, wheel and keyboard input on the plot canvas. Drag pans; Shift+drag draws a zoom box
+ * (1D: sets the multiplet region there instead, the wheel zooms); the wheel zooms around the cursor
+ * (1D: along F2; Shift+wheel: intensity); a click snaps to the nearest peak (a cross peak is
+ * measured, a 1D multiplet analysed). Keys go through keys.ts.
  */
 import { keyAction } from './keys';
 import type { Panel } from './panel';
@@ -57,7 +58,10 @@ export function bindInput(canvas: HTMLCanvasElement, readout: HTMLElement, curre
     if (Math.hypot(p.x - down.x, p.y - down.y) >= CLICK_PX) down.moved = true;
     if (!down.moved) return;
     if (down.box) {
-      panel.box = { x0: down.x + panel.plotLayout.left, y0: down.y + panel.plotLayout.top, x1: p.x + panel.plotLayout.left, y1: p.y + panel.plotLayout.top };
+      const L = panel.plotLayout;
+      // 1D: the region spans the whole height (only its F2 ends count).
+      const [y0, y1] = panel.meta.dims === 2 ? [down.y, p.y] : [0, L.plot.height];
+      panel.box = { x0: down.x + L.left, y0: y0 + L.top, x1: p.x + L.left, y1: y1 + L.top };
       panel.redraw();
     } else {
       const v = pan(panel.view, panel.extent, panel.plotLayout.plot, p.x - down.x, panel.meta.dims === 2 ? p.y - down.y : 0);
@@ -71,7 +75,10 @@ export function bindInput(canvas: HTMLCanvasElement, readout: HTMLElement, curre
     const panel = current();
     if (!down || !panel) return;
     const p = local(panel, e);
-    if (down.box && down.moved) panel.boxZoom(down.x, down.y, p.x, p.y);
+    if (down.box && down.moved) {
+      if (panel.meta.dims === 2) panel.boxZoom(down.x, down.y, p.x, p.y);
+      else panel.setRegion(down.x, p.x);
+    }
     else if (!down.moved) {
       const L = panel.plotLayout;
       const hit = panel.peakAt(p.x + L.left, p.y + L.top);

@@ -107,7 +107,7 @@ function onMessage(m: ToWebview): void {
   if (m.type === 'init') return start(m);
   const p = panel;
   switch (m.type) {
-    case 'tile': case 'measured':
+    case 'tile': case 'measured': case 'analysed':
       if (!rpc.requests.resolve(m.inReplyTo, m)) console.warn(`couplet: reply to unknown request ${m.inReplyTo}`);
       return;
     case 'error':

@@ -9,11 +9,12 @@ import { step, type CacheEntry } from './contourCache';
 import type { Action } from './keys';
 import { contourLevels, levelsKey, levelUnit, usableContours } from './levels';
 import { MeasureState } from './measureState';
+import { MultipletState, multipletLines, regionRequest } from './multipletState';
 import type { SavedState } from './savedState';
 import { peakAt, pickOn } from './hitTest';
 import { layoutFor, type Frame, type Layout } from './frame';
 import { drawFrame } from './plot';
-import type { View } from './scales';
+import { xScale, type View } from './scales';
 import { changeStatus, NO_REVIEW, reviewUpdate, stepChange, type ReviewState } from './review';
 import { readPalette, type Palette } from './theme';
 import { planTile, type PointWindow, type TilePlan } from './tiles';
@@ -46,6 +47,8 @@ export class Panel {
   selected: number | null;
   /** The measurement shown and what Accept sends (replies to older requests are dropped). */
   readonly measured = new MeasureState();
+  /** 1D: the selected multiplet's analysis (replies to older requests are dropped). */
+  readonly multiplet = new MultipletState();
   /** The label field's text (main.ts keeps it current), kept with the view state. */
   labelDraft: string;
   box: Frame['box'] = null;
@@ -112,6 +115,8 @@ export class Panel {
     this.sidecar = s;
     if (s.blocked) this.status(`Sidecar not editable: ${s.blocked}`);
     else if (wasBlocked) this.status('Sidecar readable again.');
+    // A region, reference or label may have changed: the host answers from its cache when nothing did.
+    this.analyse();
     this.redraw();
   }
 
@@ -185,7 +190,8 @@ export class Panel {
   }
 
   private frameData(tiles: readonly CacheEntry[]): Frame {
-    return { meta: this.meta, view: this.view, tiles, levelCount: this.contours.levels, peaks: this.peaks, picks: this.sidecar.picks, selected: this.selected, box: this.box, marks: this.review.marks, markFocus: this.review.current };
+    const multiplet = this.multiplet.shown?.peakIndex === this.selected ? this.multiplet.shown : null;
+    return { meta: this.meta, view: this.view, tiles, levelCount: this.contours.levels, peaks: this.peaks, picks: this.sidecar.picks, selected: this.selected, box: this.box, marks: this.review.marks, markFocus: this.review.current, multiplet };
   }
 
   /** Peak nearest a canvas point (CSS px), in screen distance. */
@@ -201,7 +207,47 @@ export class Panel {
   select(index: number | null): void {
     this.selected = index;
     this.persist();
+    this.analyse();
     this.redraw();
+  }
+
+  /** 1D: asks the host for the selected multiplet's analysis (which also tells it what the palette commands act on). */
+  analyse(): void {
+    const idx = this.selected;
+    if (idx === null || this.meta.dims !== 1 || this.disposed) return;
+    const token = this.multiplet.started();
+    if (this.multiplet.shown?.peakIndex !== idx) this.status('Analysing the multiplet…');
+    const req = this.rpc.requests.send(this.rpc.post, (id) => ({ type: 'analyse', id, peakIndex: idx }));
+    req.promise.then((m) => {
+      if (m.type !== 'analysed') return this.status(`Unexpected reply "${m.type}" to an analysis.`);
+      if (!this.multiplet.analysed(token, m.analysis)) return;
+      this.status('');
+      this.showMultiplet();
+      this.redraw();
+    }, (e: unknown) => {
+      if (!this.multiplet.failed(token)) return;
+      this.el.trace.hidden = true;
+      this.status(e instanceof CancelledReply ? 'Analysis cancelled.' : `Analysis failed: ${e instanceof Error ? e.message : String(e)}`);
+      this.redraw();
+    });
+  }
+
+  private showMultiplet(): void {
+    const v = this.multiplet.shown;
+    if (!v || this.disposed) return;
+    this.el.trace.hidden = false;
+    this.el.traceCanvas.hidden = true;
+    this.el.traceText.textContent = multipletLines(v, this.settings.jDecimals).join('\n');
+  }
+
+  /** Shift+drag along a 1D trace (plot x in CSS px): the region of the multiplet there, or a new pick. */
+  setRegion(x0: number, x1: number): void {
+    if (this.sidecar.blocked) return this.status(`Sidecar not editable: ${this.sidecar.blocked}`);
+    const xs = xScale(this.view, this.layout.plot);
+    const r = regionRequest(xs.invert(x0), xs.invert(x1), this.peaks, this.selected);
+    this.rpc.post(r);
+    if (r.peakIndex !== null && r.peakIndex !== this.selected) this.select(r.peakIndex);
+    this.status(`Region ${r.fromPpm.toFixed(4)}–${r.toPpm.toFixed(4)} ppm ${r.peakIndex === null ? 'on a new pick' : 'set'} (undo takes it back).`);
   }
 
   measure(): void {
@@ -233,13 +279,15 @@ export class Panel {
     if (this.method === this.settings.defaultMethod) this.method = s.defaultMethod;
     this.settings = s;
     this.setContours(usableContours(s.contours, this.contours));
-    this.showTrace();
+    if (this.meta.dims === 1) this.showMultiplet();
+    else this.showTrace();
   }
 
   showTrace(): void {
     const m = this.measured.shown;
     if (!m || this.disposed) return;
     this.el.trace.hidden = false;
+    this.el.traceCanvas.hidden = false;
     drawTraces(this.el.traceCanvas, this.el.traceText, m, this.settings.jDecimals, this.palette);
   }
 

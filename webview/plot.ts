@@ -1,6 +1,6 @@
 /**
- * Canvas drawing of one frame: contours (2D) or the line (1D), cross peaks, picks, the selection,
- * the box-zoom rectangle and the axes. Geometry comes from the contour cache in tile coordinates;
+ * Canvas drawing of one frame: contours (2D) or the line (1D) with its multiplet regions and the
+ * selected multiplet's fit, cross peaks, picks, the selection, the box-zoom rectangle and the axes. Geometry comes from the contour cache in tile coordinates;
  * one affine map per tile takes it to device pixels, so a pan is a redraw, not a re-contour.
  */
 import type { CacheEntry } from './contourCache';
@@ -79,6 +79,63 @@ function drawLine1D(ctx: CanvasRenderingContext2D, f: Frame, L: Layout, p: Palet
   }
 }
 
+/** A band across the plot between two shifts: filled faintly, outlined (dashed) in high contrast where fills fade. */
+function band(ctx: CanvasRenderingContext2D, f: Frame, L: Layout, p: Palette, a: number, b: number, colour: string, alpha: number): void {
+  const d = L.dpr;
+  const xs = xScale(f.view, L.plot);
+  const [x0, x1] = [xs(a) + L.left, xs(b) + L.left].sort((u, v) => u - v) as [number, number];
+  ctx.fillStyle = colour;
+  ctx.globalAlpha = p.highContrast ? 0 : alpha;
+  ctx.fillRect(d * x0, d * L.top, d * (x1 - x0), d * L.plot.height);
+  ctx.globalAlpha = 1;
+  if (p.highContrast) {
+    ctx.strokeStyle = colour;
+    ctx.lineWidth = d;
+    ctx.setLineDash([4 * d, 3 * d]);
+    ctx.strokeRect(d * x0, d * L.top, d * (x1 - x0), d * L.plot.height);
+    ctx.setLineDash([]);
+  }
+}
+
+/** 1D, under the trace: the regions set on picks, and the analysed region of the selected multiplet. */
+function drawRegions(ctx: CanvasRenderingContext2D, f: Frame, L: Layout, p: Palette): void {
+  for (const k of f.picks) if (k.fromPpm !== undefined && k.toPpm !== undefined) band(ctx, f, L, p, k.fromPpm, k.toPpm, p.pick, 0.08);
+  const m = f.multiplet;
+  if (m) band(ctx, f, L, p, m.fromPpm, m.toPpm, p.focus, 0.14);
+}
+
+/** 1D, over the trace: the fitted lineshape (dashed) and a tick at each fitted line. */
+function drawFit(ctx: CanvasRenderingContext2D, f: Frame, L: Layout, p: Palette): void {
+  const m = f.multiplet;
+  if (!m) return;
+  const d = L.dpr;
+  const xs = xScale(f.view, L.plot);
+  const ys = yScale(f.view, L.plot);
+  ctx.strokeStyle = p.fit;
+  ctx.lineWidth = (p.highContrast ? 2 : 1.5) * d;
+  if (m.fitted) {
+    const { fromPpm, toPpm, data } = m.fitted;
+    const n = data.length;
+    ctx.setLineDash([5 * d, 3 * d]);
+    ctx.beginPath();
+    for (let k = 0; k < n; k++) {
+      const ppm = n > 1 ? fromPpm + ((toPpm - fromPpm) * k) / (n - 1) : fromPpm;
+      const x = d * (xs(ppm) + L.left);
+      const y = d * (ys(data[k] ?? 0) + L.top);
+      if (k === 0) ctx.moveTo(x, y);
+      else ctx.lineTo(x, y);
+    }
+    ctx.stroke();
+    ctx.setLineDash([]);
+  }
+  ctx.beginPath();
+  for (const ppm of m.linesPpm) {
+    const x = d * (xs(ppm) + L.left);
+    ctx.moveTo(x, d * (L.top + 22)); ctx.lineTo(x, d * (L.top + 32));
+  }
+  ctx.stroke();
+}
+
 function drawMarkers(ctx: CanvasRenderingContext2D, f: Frame, L: Layout, p: Palette): void {
   const d = L.dpr;
   ctx.lineWidth = d;
@@ -107,7 +164,8 @@ function drawMarkers(ctx: CanvasRenderingContext2D, f: Frame, L: Layout, p: Pale
     ctx.lineTo(d * s.x, d * (s.y + 6)); ctx.lineTo(d * (s.x - 6), d * s.y);
     ctx.closePath();
     ctx.stroke();
-    if (k.label.length > 0) ctx.fillText(k.label.join(' / '), d * (s.x + 9), d * (s.y - 8));
+    const text = [k.label.join(' / '), k.protons === undefined ? '' : `ref ${k.protons} H`].filter((t) => t !== '').join('  ');
+    if (text !== '') ctx.fillText(text, d * (s.x + 9), d * (s.y - 8));
   }
   const sel = f.peaks.find((k) => k.index === f.selected);
   if (sel) {
@@ -211,7 +269,11 @@ export function drawFrame(ctx: CanvasRenderingContext2D, f: Frame, L: Layout, p:
   ctx.rect(d * L.left, d * L.top, d * L.plot.width, d * L.plot.height);
   ctx.clip();
   if (f.meta.dims === 2) drawContours(ctx, f, L, p);
-  else drawLine1D(ctx, f, L, p);
+  else {
+    drawRegions(ctx, f, L, p);
+    drawLine1D(ctx, f, L, p);
+    drawFit(ctx, f, L, p);
+  }
   drawMarkers(ctx, f, L, p);
   drawMarks(ctx, f, L, p);
   if (f.box) {

@@ -2,7 +2,7 @@
  * Request/reply over postMessage: each request gets a fresh `id`, the reply names it in
  * `inReplyTo`. Pure (the post function is passed in), so it is tested in Node.
  */
-import type { FromWebview, MeasuredMessage, TileMessage } from '../src/protocol';
+import type { AnalysedMessage, FromWebview, MeasuredMessage, TileMessage } from '../src/protocol';
 
 /** The host cancelled the request (Esc, a cancel button): not a failure of the work itself. */
 export class CancelledReply extends Error {
@@ -52,7 +52,7 @@ export class Requests<Reply> {
 /** What the panel uses to talk to the host: one id sequence for every kind of request. */
 export interface Rpc {
   readonly post: (m: FromWebview) => void;
-  readonly requests: Requests<TileMessage | MeasuredMessage>;
+  readonly requests: Requests<TileMessage | MeasuredMessage | AnalysedMessage>;
 }
 
 /**

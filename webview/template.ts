@@ -47,7 +47,7 @@ export function panelHtml(o: PanelHtmlOptions): string {
 <div id="toolbar" class="toolbar" role="toolbar" aria-label="Spectrum tools"></div>
 <div id="status" class="status" role="status" aria-live="polite"></div>
 <div id="plotWrap" class="plot-wrap">
-<canvas id="plot" class="plot" tabindex="0" aria-label="Spectrum plot. Arrow keys pan, plus and minus zoom, N and P move between peaks, M measures, A accepts, L labels, Delete removes the pick, Z zooms to the peak, 0 resets, C and Shift+C step through compared changes."></canvas>
+<canvas id="plot" class="plot" tabindex="0" aria-label="Spectrum plot. Arrow keys pan, plus and minus zoom, N and P move between peaks, M measures, A accepts, L labels, Delete removes the pick, Z zooms to the peak, 0 resets, C and Shift+C step through compared changes. In a 1D spectrum, Shift+drag sets the multiplet region; Alt+R types it, Alt+I sets the integral reference."></canvas>
 <div id="readout" class="readout" aria-live="off"></div>
 <ol id="changes" class="changes" hidden aria-label="Changes since another revision: C and Shift+C step through them"></ol>
 </div>
