@@ -10,10 +10,10 @@ import { estimateNoise } from '../spectrum/noise';
 import type { Spectrum1D } from '../spectrum/spectrum';
 import { lorentzianPeak } from '../peaks/interpolate';
 import type { LineshapeFit } from './multipletFit';
-import { analyseLineshape } from './multipletLineshape';
+import { analyseLineshape, type LineshapeResult } from './multipletLineshape';
 import { fitSplittingTree, type TreeFit, type TreeGroup, type TreeOptions } from './splittingTree';
 
-export type MultipletFlag = 'second-order' | 'roofing' | 'not-first-order' | 'cosy-disagrees';
+export type MultipletFlag = 'second-order' | 'roofing' | 'not-first-order' | 'ambiguous' | 'cosy-disagrees';
 
 /** A partner proton known from elsewhere (e.g. the DQF-COSY): its shift and, if measured, J ± σ. */
 export interface KnownPartner {
@@ -205,13 +205,13 @@ export function analyseMultiplet(s: Spectrum1D, fromPpm: number, toPpm: number, 
   const centreHz = shape ? shape.fit.centreHz : tree ? tree.centreHz : lines.reduce((a, l) => a + l.hz * l.height, 0) / w;
   const flags: MultipletFlag[] = [];
   const notes: string[] = [];
-  if (shape) judgeFit(shape.fit, shape.multiplicity, flags, notes);
+  if (shape) judgeFit(shape, flags, notes);
   else judgeTree(tree, lines, flags, notes);
   judgeRoofing(lines, shape ? areaAsymmetry(s, i0, shape.fit) : null, flags, notes);
   const resolved = shape ? shape.fit.groups : tree?.groups ?? [];
   const cosy = checkPartners(centreHz / s.axis.observeMhz, s.axis.observeMhz, resolved, partners, flags, notes);
   const couplings = shape ? shape.couplings : tree?.groups ?? [];
-  const reportable = (shape !== null || tree !== null) && !flags.some((f) => f === 'second-order' || f === 'not-first-order');
+  const reportable = (shape !== null || tree !== null) && !flags.some((f) => f === 'second-order' || f === 'not-first-order' || f === 'ambiguous');
   const multiplicity = shape ? shape.multiplicity : tree?.multiplicity ?? 'm';
   if (shape && reportable) noteSmallJ(shape.couplings, shape.fit.fwhmHz, shape.lineModel, notes);
   return {
@@ -230,13 +230,20 @@ function noteSmallJ(couplings: readonly TreeGroup[], fwhmHz: number, lineModel: 
 
 /**
  * A lineshape misfit beyond the noise means the data are not one first-order multiplet (second
- * order, overlap, a baseline artefact): flagged, so that no line spacing is reported as a J.
+ * order, overlap, a baseline artefact): flagged, so that no line spacing is reported as a J. A tree
+ * of another description that fits nearly as well (weak outer lines lost in the noise) is flagged too.
  */
-function judgeFit(fit: LineshapeFit, multiplicity: string, flags: MultipletFlag[], notes: string[]): void {
+function judgeFit(shape: LineshapeResult, flags: MultipletFlag[], notes: string[]): void {
+  const { fit, multiplicity, rival } = shape;
   if (fit.chi2Reduced > MAX_CHI2_REDUCED && fit.excessMisfit > MAX_EXCESS_MISFIT) {
     flags.push('not-first-order');
     notes.push(`the best first-order lineshape (${multiplicity}) misses the data by ${(100 * fit.excessMisfit).toFixed(1)} % of the tallest line ` +
       `beyond the noise (χ²_red ${fit.chi2Reduced.toFixed(1)}): second-order (strong coupling) or overlap; line spacings need not be couplings, so no J is reported.`);
+  } else if (rival) {
+    const js = (cs: readonly TreeGroup[]): string => cs.map((c) => c.jHz.toFixed(1)).join(', ');
+    flags.push('ambiguous');
+    notes.push(`the lineshape fits ${multiplicity} (J = ${js(shape.couplings)} Hz) and ${rival.multiplicity} (J = ${js(rival.couplings)} Hz) ` +
+      `nearly equally well (criterion ${(rival.fit.criterion - fit.criterion).toFixed(1)} apart): reported as m; a higher signal-to-noise or resolution could decide.`);
   }
 }
 

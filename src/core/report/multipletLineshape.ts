@@ -22,6 +22,12 @@ const SPAN_SEEDS = 6;
 const NEARLY_EQUAL = 0.2;
 /** Fitted lines may be at most this many times the linewidth seen at the outer lines (plus 1 Hz). */
 const MAX_FWHM_FACTOR = 3;
+/**
+ * Two descriptions whose criteria differ by less than this are both supported by the data (an
+ * evidence ratio below e^5 ≈ 150 on the BIC scale; Kass & Raftery, JASA 90 (1995) 773 [mem] call
+ * differences above 10 very strong).
+ */
+const AMBIGUOUS = 10;
 
 export interface LineshapeInput {
   i0: number;
@@ -39,6 +45,8 @@ export interface LineshapeInput {
 
 export interface LineshapeResult {
   fit: LineshapeFit;
+  /** A fit of another description that the data support nearly as well (criterion within AMBIGUOUS), if any. */
+  rival: { fit: LineshapeFit; couplings: TreeGroup[]; multiplicity: string } | null;
   /** What may be reported: near-equal J merged into one group (largest J first). */
   couplings: TreeGroup[];
   multiplicity: string;
@@ -150,9 +158,23 @@ function searchLineshape(s: Spectrum1D, inp: LineshapeInput): LineshapeResult | 
   if (!found) return null;
   // Two equal lines closer than w/√3 show one maximum (derived: the second derivative at the midpoint), so
   // nearly equal couplings (within a fifth of their size) that differ by less than that are written as one group.
-  const couplings = mergeNear(found.best.groups, found.best.fwhmHz / Math.sqrt(3), NEARLY_EQUAL);
-  return { fit: found.best, couplings, multiplicity: lettersOf(couplings), tried: found.tried,
+  const report = (f: LineshapeFit): TreeGroup[] => mergeNear(f.groups, f.fwhmHz / Math.sqrt(3), NEARLY_EQUAL);
+  const couplings = report(found.best);
+  const key = describe(couplings, found.best.fwhmHz);
+  const rivalFit = found.others
+    .filter((f) => f.criterion - found.best.criterion < AMBIGUOUS && describe(report(f), f.fwhmHz) !== key)
+    .sort((a, b) => a.criterion - b.criterion)[0];
+  const rival = rivalFit ? { fit: rivalFit, couplings: report(rivalFit), multiplicity: lettersOf(report(rivalFit)) } : null;
+  return { fit: found.best, rival, couplings, multiplicity: lettersOf(couplings), tried: found.tried,
     lineModel: ctx.line.kind === 'processed' ? 'exact line of the recorded processing' : 'Lorentz-Gauss line, no processing recorded' };
+}
+
+/**
+ * What a chemist would read from the couplings: letters and J to 0.5 Hz of those at least half a
+ * linewidth (smaller ones are broadening, noted separately).
+ */
+function describe(couplings: readonly TreeGroup[], fwhmHz: number): string {
+  return couplings.filter((c) => c.jHz >= fwhmHz / 2).map((c) => `${LETTERS[c.count] ?? '?'}${Math.round(c.jHz * 2) / 2}`).join(' ');
 }
 
 /** Positions of both lists, those within tolHz of an earlier one dropped. */

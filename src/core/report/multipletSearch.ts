@@ -18,6 +18,8 @@ export interface SearchResult {
   best: LineshapeFit;
   /** Screening fits run: how hard the search had to look. */
   tried: number;
+  /** Every other plausible fit polished on the way (for the ambiguity check). */
+  others: LineshapeFit[];
 }
 
 /** At most this many J parameters and coupled protons in one tree (a CH between a CH2 and a CH3 has 5). */
@@ -41,11 +43,13 @@ export function treeOfFit(f: LineshapeFit): TreeSpec {
 }
 
 /**
- * A J must stand clear of zero: above 3 sd and above a sixth of the linewidth (below that it only
- * broadens the lines); and the lines may not grow wider than maxFwhmHz (a broad hump under a baseline explains anything).
+ * A J must stand clear of zero: above 3 sd (5 sd below half the linewidth) and above a sixth of the
+ * linewidth (below that it only broadens the lines); and the lines may not grow wider than maxFwhmHz (a broad hump under a baseline explains anything).
  */
 function plausible(f: LineshapeFit, maxFwhmHz: number): boolean {
-  return f.groups.every((g) => g.jHz > 3 * g.sdHz && g.jHz > f.fwhmHz / 6) && Number.isFinite(f.criterion) && f.fwhmHz <= maxFwhmHz;
+  // A J below half the linewidth shows only in the lineshape: it must stand out more (5 sd), as the search tries many.
+  const clear = (g: LineshapeFit['groups'][number]): boolean => g.jHz > (g.jHz < f.fwhmHz / 2 ? 5 : 3) * g.sdHz && g.jHz > f.fwhmHz / 6;
+  return f.groups.every(clear) && Number.isFinite(f.criterion) && f.fwhmHz <= maxFwhmHz;
 }
 
 /** Residual sum of squares of a tree at its starting values (amplitudes solved), for ranking many seeds cheaply. */
@@ -124,6 +128,7 @@ export function neighbours(t: TreeSpec, fwhmHz: number): TreeSpec[] {
  */
 export function searchTrees(ctx: FitContext, seeds: readonly Seed[], width0: number, maxFwhmHz: number, fwhm0Hz: number): SearchResult | null {
   const seen = new Set<string>();
+  const polished: LineshapeFit[] = [];
   let tried = 0;
   const screen = (ts: readonly { tree: TreeSpec; centreHz: number; width: number }[]): QuickFit[] => {
     const out: QuickFit[] = [];
@@ -142,6 +147,7 @@ export function searchTrees(ctx: FitContext, seeds: readonly Seed[], width0: num
   const firstGood = (qs: readonly QuickFit[], bar: number, tries: number): LineshapeFit | null => {
     for (const q of qs.slice(0, tries)) {
       const f = collapse(polish(ctx, q));
+      if (f && plausible(f, maxFwhmHz)) polished.push(f);
       if (f && plausible(f, maxFwhmHz) && f.criterion < bar) return f;
     }
     return null;
@@ -173,5 +179,6 @@ export function searchTrees(ctx: FitContext, seeds: readonly Seed[], width0: num
     // Residuals at the noise level: another start could only add parameters the criterion would refuse.
     if (best && best.chi2Reduced < CHI2_EXPLAINED) break;
   }
-  return best ? { best, tried } : null;
+  const winner = best;
+  return winner ? { best: winner, tried, others: polished.filter((f) => f !== winner) } : null;
 }
