@@ -170,11 +170,11 @@ function searchLineshape(s: Spectrum1D, inp: LineshapeInput): LineshapeResult | 
 }
 
 /**
- * What a chemist would read from the couplings: letters and J to 0.5 Hz of those at least half a
- * linewidth (smaller ones are broadening, noted separately).
+ * What a chemist would read from the couplings: letters and J to 0.5 Hz of those at least one
+ * linewidth (below it a J shows as shoulders or broadening, and a d, t or q of it fit about alike).
  */
 function describe(couplings: readonly TreeGroup[], fwhmHz: number): string {
-  return couplings.filter((c) => c.jHz >= fwhmHz / 2).map((c) => `${LETTERS[c.count] ?? '?'}${Math.round(c.jHz * 2) / 2}`).join(' ');
+  return couplings.filter((c) => c.jHz >= fwhmHz).map((c) => `${LETTERS[c.count] ?? '?'}${Math.round(c.jHz * 2) / 2}`).join(' ');
 }
 
 /** Positions of both lists, those within tolHz of an earlier one dropped. */

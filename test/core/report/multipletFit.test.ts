@@ -173,6 +173,13 @@ describe('what the fit refuses', () => {
     expect(a.notes.join(' ')).toMatch(/beyond the noise/);
   });
 
+  it('a dqdd whose weak outer lines sink into the noise (SNR 300): two descriptions fit about equally, so m with a note naming both', () => {
+    const a = analyse([{ jHz: 13.6, count: 1 }, { jHz: 9.5, count: 3 }, { jHz: 5.1, count: 1 }, { jHz: 3.8, count: 1 }], { widthHz: 1.39, snr: 300, seed: 3 });
+    expect(a.flags).toEqual(['ambiguous']);
+    expect([a.multiplicity, a.couplings]).toEqual(['m', []]);
+    expect(a.notes.join(' ')).toMatch(/nearly equally well/);
+  });
+
   it('a known partner with shift difference / J < 10 makes even a clean fit m (the first-order J may be wrong)', () => {
     const a = analyse([{ jHz: 8.0, count: 1 }], { partners: [{ label: 'B', ppm: 4.0 - 60 / MHZ, jHz: 8.0, sdHz: 0.1 }] });
     expect(a.fit!.groups[0]!.jHz).toBeCloseTo(8.0, 1);
