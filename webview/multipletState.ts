@@ -55,6 +55,8 @@ export function multipletLines(v: MultipletView, jDecimals: number): string[] {
     `δ ${v.centrePpm.toFixed(4)} ppm   ${v.multiplicity}   ${who}`,
     `region ${v.fromPpm.toFixed(4)}–${v.toPpm.toFixed(4)} ppm (${v.regionSet ? 'set on the pick' : 'automatic; Shift+drag or Alt+R sets one'})`,
     `integral ${v.integral.toPrecision(4)}   protons: ${protons}   ${v.reference}`,
+    // The automatic extent ends close to the outer lines and cuts their Lorentzian tails: counts come out low.
+    ...(v.protons !== null && !v.regionSet ? ['Caution: automatic region; it cuts the line tails, so the proton count reads low. Set a region (Shift+drag, Alt+R) on this and the reference.'] : []),
     v.couplings.length > 0
       ? `J = ${v.couplings.map((c) => `${hz(c.jHz)} ± ${hz(c.sdHz)}${c.count > 1 ? ` (×${c.count})` : ''}`).join(', ')} Hz`
       : 'J: none reported',

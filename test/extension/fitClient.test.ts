@@ -12,7 +12,9 @@ import { writeJcamp2D } from '../../src/core/jcamp';
 import { measureCrossPeak } from '../../src/core/measure';
 import { CancelledError, FitClient, FitFailedError, type WorkerLike } from '../../src/extension/fitClient';
 import type { FromWorker, ToWorker } from '../../src/extension/workerMessages';
+import { analyseMultiplet } from '../../src/core/report/multiplet';
 import { testModel } from './fixture';
+import { multipletAt, testModel1D } from './fixture1D';
 
 let dir = '';
 let workerFile = '';
@@ -30,6 +32,24 @@ function spectrumTransfer() {
 }
 
 describe('FitClient with the real worker', () => {
+  it('analyses a 1D multiplet in the worker exactly as in-process, and reports a region too narrow as expected (not a bug)', async () => {
+    const m = testModel1D();
+    const s = m.spectrum;
+    const k = m.multiplets[multipletAt(m, 1.2)];
+    if (s.dims !== 1 || !k) throw new Error('fixture is 1D');
+    const client = new FitClient(() => new Worker(workerFile), { dims: 1, spectrum: { title: s.title, data: s.data, axis: s.axis, ...(s.processing && { processing: s.processing }) } });
+    try {
+      const remote = await client.analyse(k.fromPpm, k.toPpm, {});
+      const local = analyseMultiplet(s, k.fromPpm, k.toPpm, {});
+      expect(remote.couplings).toEqual(local.couplings);
+      expect(remote.integral).toBe(local.integral);
+      expect(remote.fit?.model).toEqual(local.fit?.model);
+      await expect(client.analyse(1.2, 1.20001, {})).rejects.toBeInstanceOf(FitFailedError);
+    } finally {
+      client.dispose();
+    }
+  });
+
   it('returns the same measurement as measureCrossPeak in-process (same input, deterministic fit)', async () => {
     const m = testModel();
     const peak = m.crossPeaks[1];

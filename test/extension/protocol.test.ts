@@ -12,6 +12,9 @@ const valid: FromWebview[] = [
   { type: 'label', pickId: 'p-4.2000-3.8500', labels: ['H-1', 'H-2'] },
   { type: 'removePick', pickId: 'p-1' },
   { type: 'measureAll', method: 'fit' },
+  { type: 'analyse', id: 5, peakIndex: 3 },
+  { type: 'setRegion', peakIndex: 3, fromPpm: 3.86, toPpm: 3.78 },
+  { type: 'setRegion', peakIndex: null, fromPpm: 3.78, toPpm: 3.86 },
   { type: 'cancel' },
 ];
 
@@ -31,6 +34,12 @@ describe('parseFromWebview', () => {
     [{ type: 'label', pickId: 7, labels: [] }, 'pickId'],
     [{ type: 'removePick' }, 'pickId'],
     [{ type: 'measureAll' }, 'method'],
+    [{ type: 'analyse', id: 1, peakIndex: -1 }, 'peakIndex'],
+    [{ type: 'analyse', peakIndex: 0 }, 'id'],
+    [{ type: 'setRegion', peakIndex: 0.5, fromPpm: 3.86, toPpm: 3.78 }, 'peakIndex'],
+    [{ type: 'setRegion', peakIndex: 0, fromPpm: '3.86', toPpm: 3.78 }, 'fromPpm'],
+    [{ type: 'setRegion', peakIndex: 0, fromPpm: 3.86, toPpm: Number.NaN }, 'toPpm'],
+    [{ type: 'setRegion', peakIndex: 0, fromPpm: 3.86, toPpm: 3.86 }, 'toPpm'],
   ])('names the bad field of %j', (m, field) => {
     expect(parseFromWebview(m)).toEqual({ ok: false, error: `message "${m.type}": field "${field}" is missing or invalid` });
   });
@@ -115,5 +124,36 @@ describe('parseToWebview: the views the panel reads are checked before use', () 
     ['command', 'command', { type: 'command', command: 'formatDisk' }],
   ])('refuses a "%s" message whose "%s" the panel would misread', (type, field, m) => {
     expect(parseToWebview(m)).toEqual({ ok: false, error: `message "${type}": field "${field}" is missing or invalid` });
+  });
+});
+
+describe('parseToWebview: the 1D multiplet analysis', () => {
+  const analysis = {
+    peakIndex: 2, pickId: 'p-3.8200', label: ['H-4'], centrePpm: 3.82, fromPpm: 3.848, toPpm: 3.793, regionSet: true,
+    integral: 1388.2, protons: 1.02, reference: 'reference p-1.1700 (H-7) = 3 H', multiplicity: 'tt',
+    couplings: [{ jHz: 11.17, sdHz: 0.02, count: 2 }, { jHz: 4.53, sdHz: 0.02, count: 2 }], flags: [], notes: [],
+    cosy: [{ partner: 'H-3b', cosyJHz: 4.5, cosySdHz: 0.05, oneDJHz: 4.53, oneDSdHz: 0.02, agrees: true }], partners: ['H-3b'],
+    linesPpm: [3.84, 3.83], fitted: { fromPpm: 3.848, toPpm: 3.793, data: new Float32Array(3) },
+  };
+
+  it('accepts a well-formed analysis, also without a reference, pick or fit', () => {
+    expect(parseToWebview({ type: 'analysed', inReplyTo: 1, analysis }).ok).toBe(true);
+    expect(parseToWebview({ type: 'analysed', inReplyTo: 1, analysis: { ...analysis, protons: null, pickId: null, fitted: null } }).ok).toBe(true);
+  });
+
+  it.each([
+    ['a J given as text', { ...analysis, couplings: [{ jHz: '11.17', sdHz: 0.02, count: 2 }] }],
+    ['a count of 0 equivalent partners', { ...analysis, couplings: [{ jHz: 11.17, sdHz: 0.02, count: 0 }] }],
+    ['a fitted curve sent as JSON numbers', { ...analysis, fitted: { fromPpm: 3.8, toPpm: 3.7, data: [1, 2] } }],
+    ['a COSY check without its verdict', { ...analysis, cosy: [{ ...analysis.cosy[0], agrees: undefined }] }],
+    ['no region flag', { ...analysis, regionSet: undefined }],
+  ])('refuses %s', (_what, bad) => {
+    expect(parseToWebview({ type: 'analysed', inReplyTo: 1, analysis: bad })).toEqual({ ok: false, error: 'message "analysed": field "analysis" is missing or invalid' });
+  });
+
+  it('reads a pick\'s region and reference in the sidecar view, and refuses a region given as text', () => {
+    const pick = { id: 'p-1', f2Ppm: 1.17, label: ['H-7'], kind: 'multiplet', fromPpm: 1.18, toPpm: 1.16, protons: 3 };
+    expect(parseToWebview({ type: 'sidecar', sidecar: { picks: [pick], couplings: [], blocked: null } }).ok).toBe(true);
+    expect(parseToWebview({ type: 'sidecar', sidecar: { picks: [{ ...pick, fromPpm: '1.18' }], couplings: [], blocked: null } }).ok).toBe(false);
   });
 });
