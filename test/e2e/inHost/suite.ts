@@ -190,6 +190,40 @@ export function steps(): Step[] {
       },
     },
     {
+      name: '1D multiplet: the region and integral-reference commands write the sidecar; revert restores the sample',
+      timeoutMs: 90_000,
+      run: async () => {
+        // samples/quellopyranol: H-4 multiplet at 3.82 ppm (pick p-3.8203), H-7 CH3 doublet at 1.17 ppm (pick p-1.1700).
+        const spec = sample('quellopyranol/1h.jdx');
+        const side = sidecarOf(spec);
+        const original = await diskText(side);
+        assert(original, 'test setup: the sample 1h.jdx sidecar is missing');
+        await openSpectrum(spec);
+        const run = (command: string, args: object): Thenable<unknown> => vscode.commands.executeCommand(command, args);
+        assertEqual(await run('couplet.setMultipletRegion', { f2Ppm: 3.82, value: '3.86-3.78' }), true, 'couplet.setMultipletRegion result');
+        assertEqual(await run('couplet.setIntegralReference', { f2Ppm: 1.17, value: '3' }), true, 'couplet.setIntegralReference result');
+        const text = await waitFor('both edits in the sidecar document', () => {
+          const t = docText(side);
+          return t?.includes('protons: 3') && t.includes('from_ppm: 3.8600') ? t : undefined;
+        });
+        const picks = parseSidecar(text, '1h.jdx.couplet.yaml').sidecar?.picks ?? [];
+        const h4 = picks.find((p) => p.id === 'p-3.8203');
+        assertEqual(`${h4?.fromPpm} ${h4?.toPpm}`, '3.86 3.78', 'region of p-3.8203');
+        assertEqual(picks.find((p) => p.id === 'p-1.1700')?.protons, 3, 'protons of p-1.1700');
+        assertEqual(picks.filter((p) => p.protons !== undefined).length, 1, 'integral references');
+        assert(canonical(text, '1h.jdx.couplet.yaml'), 'the edited sidecar is not canonical');
+        // Three lines added, nothing else touched: the change reads as what the chemist did.
+        assertEqual(text.split('\n').length - original.split('\n').length, 3, 'lines added');
+        // A region typed wrongly changes nothing.
+        assert((await run('couplet.setMultipletRegion', { f2Ppm: 3.82, value: '3.86' })) !== true, 'a one-number region was accepted');
+        assertEqual(docText(side), text, 'sidecar after a refused region');
+        await openSpectrum(spec);
+        await vscode.commands.executeCommand('workbench.action.files.revert');
+        await waitFor('the sample sidecar as it was', async () => ((await sidecarText(side)) === original ? true : undefined));
+        assertEqual(await diskText(side), original, 'sample sidecar on disk');
+      },
+    },
+    {
       name: 'a broken sidecar gives a diagnostic at its line and is never overwritten',
       timeoutMs: 90_000,
       run: async () => {
