@@ -4,6 +4,7 @@
  * only the reply to the latest request is shown. Pure (no DOM), tested in Node.
  */
 import type { MultipletView, PeakView, SetRegionRequest } from '../src/protocol';
+import { CancelledReply, type Rpc } from './rpc';
 
 export class MultipletState {
   shown: MultipletView | null = null;
@@ -25,6 +26,18 @@ export class MultipletState {
     if (token !== this.latest) return false;
     this.shown = null;
     return true;
+  }
+
+  /** Sends `analyse` for a multiplet; `done` runs for the latest request only, with null on success or the reason it failed. */
+  request(rpc: Rpc, peakIndex: number, done: (error: string | null) => void): void {
+    const token = this.started();
+    const req = rpc.requests.send(rpc.post, (id) => ({ type: 'analyse', id, peakIndex }));
+    req.promise.then((m) => {
+      if (m.type !== 'analysed') return void (this.failed(token) && done(`unexpected reply "${m.type}" to an analysis`));
+      if (this.analysed(token, m.analysis)) done(null);
+    }, (e: unknown) => {
+      if (this.failed(token)) done(e instanceof CancelledReply ? 'Analysis cancelled.' : `Analysis failed: ${e instanceof Error ? e.message : String(e)}`);
+    });
   }
 }
 

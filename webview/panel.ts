@@ -215,19 +215,11 @@ export class Panel {
   analyse(): void {
     const idx = this.selected;
     if (idx === null || this.meta.dims !== 1 || this.disposed) return;
-    const token = this.multiplet.started();
     if (this.multiplet.shown?.peakIndex !== idx) this.status('Analysing the multiplet…');
-    const req = this.rpc.requests.send(this.rpc.post, (id) => ({ type: 'analyse', id, peakIndex: idx }));
-    req.promise.then((m) => {
-      if (m.type !== 'analysed') return this.status(`Unexpected reply "${m.type}" to an analysis.`);
-      if (!this.multiplet.analysed(token, m.analysis)) return;
-      this.status('');
-      this.showMultiplet();
-      this.redraw();
-    }, (e: unknown) => {
-      if (!this.multiplet.failed(token)) return;
-      this.el.trace.hidden = true;
-      this.status(e instanceof CancelledReply ? 'Analysis cancelled.' : `Analysis failed: ${e instanceof Error ? e.message : String(e)}`);
+    this.multiplet.request(this.rpc, idx, (error) => {
+      this.status(error ?? '');
+      if (error === null) this.showMultiplet();
+      else this.el.trace.hidden = true;
       this.redraw();
     });
   }

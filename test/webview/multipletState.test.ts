@@ -1,7 +1,9 @@
 /** The 1D multiplet in the panel, without a browser: which region a Shift+drag sets, stale replies, the text shown. */
 import { describe, expect, it } from 'vitest';
 import type { MultipletView, PeakView } from '../../src/protocol';
+import type { FromWebview } from '../../src/protocol';
 import { MultipletState, multipletLines, regionRequest } from '../../webview/multipletState';
+import { Requests, type Rpc } from '../../webview/rpc';
 
 const peak = (index: number, f2Ppm: number, half = 0.02): PeakView =>
   ({ index, kind: 'multiplet', f2Ppm, extent: { f2FromPpm: f2Ppm + half, f2ToPpm: f2Ppm - half }, partner: null });
@@ -71,6 +73,28 @@ describe('MultipletState', () => {
     expect(s.failed(first)).toBe(false);
     const third = s.started();
     expect(s.failed(third)).toBe(true);
+    expect(s.shown).toBeNull();
+  });
+});
+
+describe('MultipletState.request', () => {
+  it('asks the host with the multiplet index and reports only the latest reply; a cancelled one says so', async () => {
+    const sent: FromWebview[] = [];
+    const rpc: Rpc = { post: (m) => void sent.push(m), requests: new Requests() };
+    const s = new MultipletState();
+    const done: (string | null)[] = [];
+    s.request(rpc, 0, (e) => void done.push(e));
+    s.request(rpc, 1, (e) => void done.push(e));
+    expect(sent).toEqual([{ type: 'analyse', id: 1, peakIndex: 0 }, { type: 'analyse', id: 2, peakIndex: 1 }]);
+    rpc.requests.resolve(2, { type: 'analysed', inReplyTo: 2, analysis: { ...view, peakIndex: 1 } });
+    rpc.requests.reject(1, 'analysis cancelled', true);
+    await new Promise((r) => setTimeout(r, 0));
+    expect(done).toEqual([null]);
+    expect(s.shown?.peakIndex).toBe(1);
+    s.request(rpc, 2, (e) => void done.push(e));
+    rpc.requests.reject(3, 'analysis cancelled', true);
+    await new Promise((r) => setTimeout(r, 0));
+    expect(done).toEqual([null, 'Analysis cancelled.']);
     expect(s.shown).toBeNull();
   });
 });
