@@ -161,6 +161,11 @@ export function deriveSiEntries(input: DeriveInput): DerivedSi {
       entry.multiplet = true;
       notes.push(`${g.labels[0] ?? ''}: the 1D multiplet fits no first-order splitting tree (overlapping lines or second order); written as m with its range.`);
     }
+    if (g.labels.length === 1 && !secondOrder && !entry.multiplet && (g.analysis?.flags ?? []).includes('ambiguous')) {
+      entry.multiplet = true;
+      const why = g.analysis?.notes.find((n) => n.includes('nearly equally')) ?? 'two first-order trees fit the 1D multiplet about equally; reported as m.';
+      notes.push(`${g.labels[0] ?? ''}: ${why}`);
+    }
     if (secondOrder) entry.flags = ['second-order'];
     return entry;
   });
