@@ -151,7 +151,7 @@ export interface MultipletView {
   readonly cosy: readonly CosyCheckView[];
   /** Partners whose COSY J was looked up (atom labels), so the panel can say when there were none. */
   readonly partners: readonly string[];
-  /** Fitted line positions (ppm), for ticks over the trace; empty without a fit. */
+  /** Fitted line positions (ppm), for ticks over the trace; empty without a fit or when no J is reported. */
   readonly linesPpm: readonly number[];
   /** The fitted lineshape (model plus baseline) over the region, when there is a fit. */
   readonly fitted: { readonly fromPpm: number; readonly toPpm: number; readonly data: Float32Array } | null;

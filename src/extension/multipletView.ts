@@ -65,6 +65,7 @@ export function multipletView(a: MultipletAnalysis, c: ViewContext): MultipletVi
     integral: a.integral, protons: a.protons, reference: referenceText(c), multiplicity: a.multiplicity,
     couplings: a.couplings.map((g) => ({ jHz: g.jHz, sdHz: g.sdHz, count: g.count })),
     flags: [...a.flags], notes: [...flagNotes, ...a.notes], cosy: a.cosy.map((k) => ({ ...k })), partners: [...c.partners],
-    linesPpm: linePositions(a, c.axis.observeMhz), fitted: fittedCurve(a, c.axis),
+    // Ticks would read as couplings: only for a first-order result (the misfit curve still shows why not).
+    linesPpm: a.couplings.length > 0 ? linePositions(a, c.axis.observeMhz) : [], fitted: fittedCurve(a, c.axis),
   };
 }
