@@ -4,16 +4,17 @@
  * drawing. Pure; the worker's MultipletAnalysis in, a MultipletView out.
  */
 import { treeLines } from '../core/report/multipletModel';
-import type { MultipletAnalysis } from '../core/report/multiplet';
+import type { MultipletAnalysis, MultipletFlag } from '../core/report/multiplet';
 import type { Axis } from '../core/spectrum/axis';
 import { pointToPpm, ppmToPoint } from '../core/spectrum/axis';
 import type { MultipletView } from '../protocol';
 
-/** What the flags mean, for a chemist deciding whether to trust the numbers. */
-export const FLAG_NOTES: Readonly<Record<string, string>> = {
+/** What the flags mean, for a chemist deciding whether to trust the numbers (a Record: a new core flag needs its note here). */
+export const FLAG_NOTES: Readonly<Record<MultipletFlag, string>> = {
   'second-order': 'Second order: a coupled partner is less than about 10 × J away, so line spacings are not coupling constants; no first-order J is given.',
   roofing: 'Roofing: the lines lean toward a strongly coupled partner (the roof effect).',
   'not-first-order': 'Not first order: no first-order splitting tree explains these lines (strong coupling or overlap); no J is given. Judge it by eye or by simulation.',
+  ambiguous: 'Ambiguous: two different splitting trees explain the lines about equally well (both named below); no J is given. The COSY values or a better-resolved spectrum can decide.',
   'cosy-disagrees': 'COSY disagrees: a J measured in the DQF-COSY differs from the nearest 1D splitting by more than 3 combined sd; check the assignment before using either.',
 };
 
