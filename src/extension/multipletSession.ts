@@ -5,6 +5,7 @@
  */
 import type { Multiplet1D } from '../core/peaks';
 import { integrateRegion, type KnownPartner, type MultipletAnalysis, type MultipletOptions } from '../core/report/multiplet';
+import { autoRegion } from '../core/report/multipletRegion';
 import type { Pick } from '../core/sidecar';
 import type { Spectrum1D } from '../core/spectrum/spectrum';
 import type { ToWebview } from '../protocol';
@@ -57,11 +58,17 @@ export class MultipletSession {
     return this.model.spectrum;
   }
 
-  /** Region of a pick: its own, else the automatic extent of the multiplet it sits on. */
+  /** The automatic region of multiplet i: the same as `couplet report` and `couplet measure` use (core autoRegion). */
+  private autoRegion(i: number): Region {
+    const [fromPpm, toPpm] = autoRegion(this.model.multiplets, i, this.spectrum.axis.observeMhz);
+    return { fromPpm, toPpm };
+  }
+
+  /** Region of a pick: its own, else the automatic region of the multiplet it sits on. */
   private regionOfPick(p: Pick): Region | null {
     if (p.fromPpm !== undefined && p.toPpm !== undefined) return { fromPpm: p.fromPpm, toPpm: p.toPpm };
-    const m = this.model.multiplets.find((k) => pickOfMultiplet([p], k) !== undefined);
-    return m ? { fromPpm: m.fromPpm, toPpm: m.toPpm } : null;
+    const i = this.model.multiplets.findIndex((k) => pickOfMultiplet([p], k) !== undefined);
+    return i >= 0 ? this.autoRegion(i) : null;
   }
 
   /** The sidecar's integral reference with its integral; null without one (or when its region cannot be integrated). */
@@ -83,7 +90,7 @@ export class MultipletSession {
     const picks = picksOf(this.store.text(), this.store.fileName);
     const pick = pickOfMultiplet(picks, multiplet);
     const own = pick?.fromPpm !== undefined && pick.toPpm !== undefined;
-    const region = own && pick ? { fromPpm: pick.fromPpm ?? 0, toPpm: pick.toPpm ?? 0 } : { fromPpm: multiplet.fromPpm, toPpm: multiplet.toPpm };
+    const region = own && pick ? { fromPpm: pick.fromPpm ?? 0, toPpm: pick.toPpm ?? 0 } : this.autoRegion(index);
     const atom = pick?.label.length === 1 ? pick.label[0] : undefined;
     let partners: KnownPartner[] = [];
     if (atom !== undefined) partners = partnersFor(atom, await this.ports.folderSidecars().catch(() => []));
@@ -136,6 +143,11 @@ export class MultipletSession {
   async setRegion(index: number | null, region: Region | null): Promise<boolean> {
     const m = index === null ? undefined : this.model.multiplets[index];
     if (index !== null && !m) return this.ports.refuse(`${this.model.fileName} has no multiplet ${index}`);
+    // The panel selects automatic multiplets only: a pick in a region without one could never be selected or analysed.
+    if (!m && region) {
+      return this.ports.refuse(`no multiplet was picked between ${region.fromPpm.toFixed(3)} and ${region.toPpm.toFixed(3)} ppm ` +
+        '(nothing above the picking threshold there); a region is set on a picked multiplet');
+    }
     const pick = m ? pickOfMultiplet(picksOf(this.store.text(), this.store.fileName), m) : undefined;
     const f2Ppm = m?.ppm ?? (region ? (region.fromPpm + region.toPpm) / 2 : NaN);
     return this.ports.edit(region ? 'Set multiplet region' : 'Clear multiplet region', (t) => regionText(t, this.store.fileName, {

@@ -167,10 +167,13 @@ describe('1D multiplet regions and the integral reference (sidecar edits)', () =
     expect(h.store.value).toBe(sidecarText(false));
   });
 
-  it('a region away from every multiplet makes a new pick at its middle', async () => {
+  it('refuses a region away from every multiplet (the panel could never select such a pick), saying why, writing nothing', async () => {
     const h = harness(sidecarText(false));
+    const before = h.store.value;
     await h.session.receive({ type: 'setRegion', peakIndex: null, fromPpm: 2.6, toPpm: 2.5 });
-    expect(h.store.value).toContain('f2_ppm: 2.5500\n    from_ppm: 2.6000\n    to_ppm: 2.5000\n    label: []\n    kind: multiplet');
+    expect(h.notes.at(-1)).toBe('no multiplet was picked between 2.600 and 2.500 ppm (nothing above the picking threshold there); a region is set on a picked multiplet');
+    expect(h.store.value).toBe(before);
+    expect(h.store.writes).toBe(0);
   });
 
   it('refuses a reference without a selected multiplet, or on a multiplet without a pick, saying why', async () => {
