@@ -4,7 +4,7 @@ import { Worker } from 'node:worker_threads';
 import * as vscode from 'vscode';
 import { keepNotesInView } from './besideNote';
 import { registerCommands } from './commands';
-import type { WorkerLike } from './fitClient';
+import { FitClient, type WorkerLike } from './fitClient';
 import { registerInsertSi } from './notes/insertSiCommand';
 import { compoundOf } from './notes/noteFiles';
 import { registerNoteFeatures } from './notes/notesFeatures';
@@ -27,8 +27,11 @@ export function activate(context: vscode.ExtensionContext): void {
     keepNotesInView(VIEW_TYPE),
   );
   // Structure notes: label completion, hover, diagnostics, and the SI line command.
-  const si = new SiSource();
+  // The compound reports behind hover, note diagnostics and the insert command run in a worker of their own.
+  const reports = new FitClient(spawn, null);
+  const si = new SiSource((input) => reports.compound(input));
   context.subscriptions.push(
+    { dispose: () => reports.dispose() },
     ...registerNoteFeatures(si),
     registerInsertSi((doc, compound, lang) => si.siLine(doc, compound, lang), compoundOf, output),
     // `couplet check` problems (labels, repeated J, flagged J in the SI) on sidecars and notes.

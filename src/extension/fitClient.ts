@@ -7,7 +7,8 @@
 import type { CrossPeakInput, Measurement, MeasureOptions } from '../core/measure';
 import { sharedCopy } from './sharedData';
 import type { MultipletAnalysis, MultipletOptions } from '../core/report/multiplet';
-import type { FromWorker, OpenReply, Spectrum1DTransfer, SpectrumTransfer, ToWorker } from './workerMessages';
+import type { CompoundReport } from '../core/report/compound';
+import type { CompoundRequest, FromWorker, OpenReply, Spectrum1DTransfer, SpectrumTransfer, ToWorker } from './workerMessages';
 
 /** What the client needs of a node `Worker` (tests may pass a fake). */
 export interface WorkerLike {
@@ -34,7 +35,8 @@ interface Pending {
 }
 
 type Request = { readonly type: 'measure'; readonly peak: CrossPeakInput; readonly options: MeasureOptions } | { readonly type: 'open'; readonly text: string; readonly fileName: string }
-  | { readonly type: 'analyse'; readonly fromPpm: number; readonly toPpm: number; readonly options: MultipletOptions };
+  | { readonly type: 'analyse'; readonly fromPpm: number; readonly toPpm: number; readonly options: MultipletOptions }
+  | Omit<CompoundRequest, 'id'>;
 
 /** The spectrum a client loads into its workers: 2D (fits) or 1D (multiplet analyses). */
 export type Loaded = { readonly dims: 2; readonly spectrum: SpectrumTransfer } | { readonly dims: 1; readonly spectrum: Spectrum1DTransfer };
@@ -71,6 +73,13 @@ export class FitClient {
     const r = await this.request({ type: 'analyse', fromPpm, toPpm, options });
     if (r.type !== 'analysed') throw new Error(`worker: expected a multiplet analysis, got "${r.type}"`);
     return r.analysis;
+  }
+
+  /** A compound's SI report, computed in the worker (the note features' client loads no spectrum of its own). */
+  async compound(input: CompoundRequest['input']): Promise<CompoundReport> {
+    const r = await this.request({ type: 'compound', input });
+    if (r.type !== 'compounded') throw new Error(`worker: expected a compound report, got "${r.type}"`);
+    return r.report;
   }
 
   async open(text: string, fileName: string): Promise<OpenReply> {

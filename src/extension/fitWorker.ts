@@ -7,12 +7,26 @@ import { parentPort } from 'node:worker_threads';
 import { MeasureError, measureCrossPeak } from '../core/measure';
 import { analyseMultiplet } from '../core/report/multiplet';
 import { make1D, make2D, type Spectrum, type Spectrum1D, type Spectrum2D } from '../core/spectrum/spectrum';
+import { compoundSi } from './notes/compoundSi';
 import { sharedCopy } from './sharedData';
 import { loadSpectrumModel } from './spectrumModel';
-import type { FromWorker, ToWorker } from './workerMessages';
+import type { FromWorker, Spectrum1DTransfer, ToWorker } from './workerMessages';
 
 let spectrum: Spectrum2D | null = null;
 let spectrum1D: Spectrum1D | null = null;
+/** 1D spectra of compound reports by key, newest last: the same object each time keeps the core's fit caches. */
+const reportSpectra = new Map<string, Spectrum1D>();
+const REPORT_SPECTRA = 4;
+
+function reportSpectrum(t: Spectrum1DTransfer & { readonly key: string }): Spectrum1D {
+  const known = reportSpectra.get(t.key);
+  reportSpectra.delete(t.key);
+  const s = known ?? make1D(t.title, t.data, t.axis, t.processing);
+  reportSpectra.set(t.key, s);
+  const oldest = reportSpectra.keys().next().value;
+  if (reportSpectra.size > REPORT_SPECTRA && oldest !== undefined) reportSpectra.delete(oldest);
+  return s;
+}
 
 /** The same spectrum with its data moved to shared memory (the reply then shares instead of copying). */
 function shared(s: Spectrum): Spectrum {
@@ -38,6 +52,14 @@ export function handle(m: ToWorker): FromWorker | null {
       } catch (e) {
         // A region too narrow or outside the data is the user's input, not a bug.
         return e instanceof RangeError ? { type: 'failed', inReplyTo: m.id, message: e.message, expected: true } : failed(m.id, e);
+      }
+    case 'compound':
+      try {
+        const { spectrum1D: t, ...rest } = m.input;
+        return { type: 'compounded', inReplyTo: m.id, report: compoundSi({ ...rest, ...(t && { spectrum1D: reportSpectrum(t) }) }) };
+      } catch (e) {
+        // compoundSi's errors say what the chemist must fix (no sidecar, a sidecar with errors).
+        return { type: 'failed', inReplyTo: m.id, message: e instanceof Error ? e.message : String(e), expected: true };
       }
     case 'open':
       try {

@@ -7,6 +7,8 @@ import type { CrossPeak, Multiplet1D } from '../core/peaks';
 import type { Axis } from '../core/spectrum/axis';
 import type { MultipletAnalysis, MultipletOptions } from '../core/report/multiplet';
 import type { Spectrum, Spectrum1D, Spectrum2D } from '../core/spectrum/spectrum';
+import type { CompoundReport } from '../core/report/compound';
+import type { CompoundInput } from './notes/compoundSi';
 
 /** The spectrum as the worker receives it; `data` is best a view on a SharedArrayBuffer (no copy per worker). */
 export interface SpectrumTransfer {
@@ -60,7 +62,18 @@ export interface OpenRequest {
   readonly fileName: string;
 }
 
-export type ToWorker = LoadMessage | Load1DMessage | FitRequest | AnalyseRequest | OpenRequest;
+/**
+ * A compound's SI report (compoundSi) for the note features: seconds of 1D lineshape fits on a cold
+ * cache. The 1D spectrum comes with a key (file and mtime): the worker keeps the spectrum of a key,
+ * so the core's per-spectrum caches of multiplet fits survive from one request to the next.
+ */
+export interface CompoundRequest {
+  readonly type: 'compound';
+  readonly id: number;
+  readonly input: Omit<CompoundInput, 'spectrum1D'> & { readonly spectrum1D?: Spectrum1DTransfer & { readonly key: string } };
+}
+
+export type ToWorker = LoadMessage | Load1DMessage | FitRequest | AnalyseRequest | OpenRequest | CompoundRequest;
 
 export interface FitReply {
   readonly type: 'measured';
@@ -92,4 +105,10 @@ export interface OpenReply {
   readonly multiplets: Multiplet1D[];
 }
 
-export type FromWorker = FitReply | AnalyseReply | FitFailed | OpenReply;
+export interface CompoundReply {
+  readonly type: 'compounded';
+  readonly inReplyTo: number;
+  readonly report: CompoundReport;
+}
+
+export type FromWorker = FitReply | AnalyseReply | FitFailed | OpenReply | CompoundReply;

@@ -2,13 +2,14 @@
  * The worker and its client: a real worker_threads worker running the bundled fitWorker.ts
  * (esbuild, as scripts/build.mjs does), and a fake worker for the request/reply bookkeeping.
  */
-import { mkdtempSync, rmSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { Worker } from 'node:worker_threads';
 import { build } from 'esbuild';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { writeJcamp2D } from '../../src/core/jcamp';
+import { parseJcamp, writeJcamp2D } from '../../src/core/jcamp';
+import { compoundSi } from '../../src/extension/notes/compoundSi';
 import { measureCrossPeak } from '../../src/core/measure';
 import { CancelledError, FitClient, FitFailedError, type WorkerLike } from '../../src/extension/fitClient';
 import type { FromWorker, ToWorker } from '../../src/extension/workerMessages';
@@ -112,6 +113,25 @@ describe('FitClient with the real worker', () => {
       const damaged = text.replace(/##\.OBSERVE FREQUENCY=[^\n]*\n/, '');
       await expect(client.open(damaged, 'bad.jdx')).rejects.toThrow(FitFailedError);
       await expect(client.open(damaged, 'bad.jdx')).rejects.toThrow(/^bad\.jdx/);
+    } finally {
+      client.dispose();
+    }
+  });
+
+  it('computes a compound report in the worker with the same SI line as in-process, and says why when there is no sidecar', async () => {
+    const dirOf = join(__dirname, '..', '..', 'samples', 'brisquarene');
+    const s = parseJcamp(readFileSync(join(dirOf, '1h.jdx'), 'latin1'), '1h.jdx');
+    if (s.dims !== 1) throw new Error('sample 1h.jdx is 1D');
+    const sidecars = ['1h.jdx.couplet.yaml', 'cosy.jdx.couplet.yaml'].map((f) => ({ fileName: f, text: readFileSync(join(dirOf, f), 'utf8') }));
+    const input = { compound: 'brisquarene', sidecars, solvent: 'CDCl3', noteLabels: [], spectrum1DFile: '1h.jdx' };
+    const here = compoundSi({ ...input, spectrum1D: s });
+    const client = new FitClient(() => new Worker(workerFile), null);
+    try {
+      const transfer = { title: s.title, data: s.data, axis: s.axis, ...(s.processing && { processing: s.processing }), key: '1h.jdx@1' };
+      const there = await client.compound({ ...input, spectrum1D: transfer });
+      expect(there.siLine).toEqual(here.siLine);
+      expect(there.notes).toEqual(here.notes);
+      await expect(client.compound({ ...input, sidecars: [] })).rejects.toThrow(/no readable sidecar \(\*\.couplet\.yaml\) beside the brisquarene note/);
     } finally {
       client.dispose();
     }

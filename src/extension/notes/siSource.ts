@@ -13,6 +13,9 @@ import type { Spectrum1D } from '../../core/spectrum/spectrum';
 import { labelsInMarkdown } from '../../core/notes/labels';
 import { readKarplusRequests } from '../../core/notes/karplusRequests';
 import { karplusEstimates, type KarplusEstimate } from '../../core/report/karplusReport';
+import { make1D } from '../../core/spectrum/spectrum';
+import { sharedCopy } from '../sharedData';
+import type { CompoundRequest } from '../workerMessages';
 import { compoundSi, multiplicities, readSources, siText } from './compoundSi';
 import { readFrontMatter } from '../../core/notes/frontMatter';
 import type { SiText } from './insertSiCommand';
@@ -59,9 +62,19 @@ async function dataFiles(folder: vscode.Uri): Promise<DataFile[]> {
   return out;
 }
 
+/** What computes a compound's report: the worker in the extension (seconds of 1D fits must not block the host). */
+export type ComputeReport = (input: CompoundRequest['input']) => Promise<CompoundReport>;
+
+/** In-process, for a host without a worker. */
+export const computeHere: ComputeReport = async ({ spectrum1D: t, ...rest }) =>
+  compoundSi({ ...rest, ...(t && { spectrum1D: make1D(t.title, t.data, t.axis, t.processing) }) });
+
 export class SiSource {
   private readonly spectra = new Map<string, { mtime: number; spectrum: Spectrum1D | null }>();
-  private readonly results = new Map<string, { key: string; report: CompoundReport }>();
+  /** The last report per folder, by its inputs; a promise, so hover and diagnostics asking at once share one computation. */
+  private readonly results = new Map<string, { key: string; report: Promise<CompoundReport> }>();
+
+  constructor(private readonly compute: ComputeReport = computeHere) {}
 
   /** The note of a compound: the markdown file itself, or the one found in the workspace by its front matter. */
   async noteFor(doc: vscode.TextDocument, compound: string): Promise<{ uri: vscode.Uri; text: string }> {
@@ -87,13 +100,23 @@ export class SiSource {
     else if (cached?.key === key) return cached.report;
     // The first 1D file by name, as `couplet report` takes it: its header declares XYDATA (2D: NTUPLES).
     const oneD = files.find((f) => /^##(?:DATA CLASS=\s*XYDATA|XYDATA=)/im.test(f.header));
-    const spectrum1D = oneD ? await this.spectrum(vscode.Uri.joinPath(folder, oneD.name), oneD.mtime) : null;
+    const oneDUri = oneD && vscode.Uri.joinPath(folder, oneD.name);
+    const spectrum1D = oneD && oneDUri ? await this.spectrum(oneDUri, oneD.mtime) : null;
     const m = files[0] ? OBSERVE.exec(files[0].header) : null;
-    const report = compoundSi({
+    const report = this.compute({
       compound, sidecars, solvent: front.solvent, noteLabels,
-      ...(spectrum1D && oneD && { spectrum1D, spectrum1DFile: oneD.name }), ...(m && { observeMhz: Number(m[1]) }), ...(dataHashes && { dataHashes }),
+      ...(spectrum1D && oneD && oneDUri && {
+        spectrum1D: { title: spectrum1D.title, data: spectrum1D.data, axis: spectrum1D.axis, ...(spectrum1D.processing && { processing: spectrum1D.processing }), key: `${oneDUri.toString()}@${oneD.mtime}` },
+        spectrum1DFile: oneD.name,
+      }),
+      ...(m && { observeMhz: Number(m[1]) }), ...(dataHashes && { dataHashes }),
     });
-    this.results.set(folder.toString(), { key, report });
+    const entry = { key, report };
+    this.results.set(folder.toString(), entry);
+    // A failed report is not kept: the next request tries again.
+    report.catch(() => {
+      if (this.results.get(folder.toString()) === entry) this.results.delete(folder.toString());
+    });
     return report;
   }
 
@@ -115,7 +138,8 @@ export class SiSource {
     if (text !== null) {
       try {
         const s = parseJcamp(text, uri.path.split('/').pop() ?? uri.path);
-        spectrum = s.dims === 1 ? s : null;
+        // Shared memory: each request to the worker then shares the points instead of copying them.
+        spectrum = s.dims === 1 ? { ...s, data: sharedCopy(s.data) } : null;
       } catch {
         // An unreadable 1D file leaves the line without integrals; opening it in the panel says why.
         spectrum = null;
