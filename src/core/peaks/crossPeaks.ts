@@ -3,7 +3,7 @@ import type { Spectrum2D } from '../spectrum/spectrum';
 import { lobeSpan } from './extent';
 import { pickExtrema2D } from './extrema2D';
 import { linkExtrema, type LinkOptions } from './group2D';
-import { assignPartners, isDiagonal } from './symmetry';
+import { assignPartners, diagonalFragments, isDiagonal } from './symmetry';
 import type { CrossPeak, CrossPeakExtent, Extremum, LevelOptions } from './types';
 
 export type CrossPeakOptions = LevelOptions & LinkOptions;
@@ -11,7 +11,8 @@ export type CrossPeakOptions = LevelOptions & LinkOptions;
 /**
  * Peak picking for a phase-sensitive DQF-COSY: extrema of both signs (pickExtrema2D), grouped into
  * multiplets (linkExtrema), each summarised as one CrossPeak, classified as diagonal or cross,
- * matched with its symmetric partner, and sorted by F2 ppm descending, then F1 ppm descending
+ * matched with its symmetric partner (an unmatched piece of a diagonal multiplet then becomes
+ * diagonal: diagonalFragments), and sorted by F2 ppm descending, then F1 ppm descending
  * (sortPeaks: one F2 column at a time).
  */
 export function pickCrossPeaks(s: Spectrum2D, opts: CrossPeakOptions = {}): { peaks: CrossPeak[]; noise: number; level: number } {
@@ -20,6 +21,7 @@ export function pickCrossPeaks(s: Spectrum2D, opts: CrossPeakOptions = {}): { pe
   const peaks = groups.map((g) => summarise(s, g.map((i) => extrema[i]).filter((e): e is Extremum => e !== undefined)));
   const sorted = sortPeaks(s, peaks);
   assignPartners(s, sorted);
+  diagonalFragments(sorted);
   return { peaks: sorted, noise, level };
 }
 

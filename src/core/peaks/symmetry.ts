@@ -24,6 +24,22 @@ export function isDiagonal(s: Spectrum2D, p: CrossPeak): boolean {
 }
 
 /**
+ * A cross peak with no symmetric partner whose centre lies closer to the diagonal (|F1 − F2|) than
+ * its own half extent is, in practice, a piece of a diagonal multiplet: a diagonal peak split by
+ * its antiphase lobes into separately grouped halves, or the merged diagonals of two protons with
+ * overlapping 1D multiplets (a real cross peak has a partner, and one this close to the diagonal
+ * belongs to protons whose multiplets overlap, where no first-order J can be read). Such peaks are
+ * made diagonal, so they are never measured as couplings. Changes `kind` in place.
+ */
+export function diagonalFragments(peaks: CrossPeak[]): void {
+  for (const p of peaks) {
+    if (p.kind !== 'cross' || p.partner !== null) continue;
+    const half = Math.max(p.extent.f1FromPpm - p.extent.f1ToPpm, p.extent.f2FromPpm - p.extent.f2ToPpm) / 2;
+    if (Math.abs(p.f1Ppm - p.f2Ppm) < half) p.kind = 'diagonal';
+  }
+}
+
+/**
  * Pairs each cross peak (A in F2, X in F1) with the one at (X, A): both swapped coordinates must
  * agree within 2 points of the coarser axis, since each comparison involves one F1 centre. Pairs are
  * taken greedily, closest first, and are mutual. Diagonal peaks keep partner null. Sets `partner`

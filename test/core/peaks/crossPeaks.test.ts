@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { pickCrossPeaks } from '../../../src/core/peaks/crossPeaks';
+import { diagonalFragments } from '../../../src/core/peaks/symmetry';
 import type { CrossPeak } from '../../../src/core/peaks/types';
 import { MHZ, pattern, ppmAxis, spectrum2D, type Grid2D, type Peak2D } from './synth';
 
@@ -163,5 +164,23 @@ describe('pickCrossPeaks: input checks', () => {
   it('rejects a non-positive link distance', () => {
     const g = grid(16, 1, 16, 1, 2, 2);
     expect(() => pickCrossPeaks(spectrum2D(g, []), { linkHz: 0 })).toThrow(/option linkHz/);
+  });
+});
+
+describe('diagonalFragments: an unpartnered peak straddling the diagonal is part of a diagonal multiplet', () => {
+  const peak = (f2Ppm: number, f1Ppm: number, halfF2: number, halfF1: number, partner: number | null): CrossPeak => ({
+    f2Ppm, f1Ppm, f2Hz: f2Ppm * MHZ, f1Hz: f1Ppm * MHZ, kind: 'cross', height: 1, extrema: [], partner,
+    extent: { f2FromPpm: f2Ppm + halfF2, f2ToPpm: f2Ppm - halfF2, f1FromPpm: f1Ppm + halfF1, f1ToPpm: f1Ppm - halfF1, row0: 0, row1: 0, col0: 0, col1: 0 },
+  });
+  // Geometry only: the distance from the centre to F1 = F2 against the peak's own half extent.
+  it('makes a lone peak diagonal when its centre is nearer the diagonal than its half extent', () => {
+    const ps = [peak(3.8388, 3.8181, 0.0016, 0.025, null), peak(3.5254, 3.4926, 0.042, 0.081, null)];
+    diagonalFragments(ps);
+    expect(ps.map((p) => p.kind)).toEqual(['diagonal', 'diagonal']);
+  });
+  it('keeps a peak with a symmetric partner, and a lone peak whose centre lies beyond its half extent', () => {
+    const ps = [peak(3.8388, 3.8181, 0.0016, 0.025, 1), peak(3.8181, 3.8388, 0.025, 0.0016, 0), peak(2.50, 2.47, 0.01, 0.01, null)];
+    diagonalFragments(ps);
+    expect(ps.map((p) => p.kind)).toEqual(['cross', 'cross', 'cross']);
   });
 });
