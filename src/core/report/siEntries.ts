@@ -4,9 +4,11 @@
  * the 1D spectrum, and the structure note's labels. Choices, stated once:
  * - shift of an atom: the mean of its one-label picks (1D multiplet, diagonal); for atoms without
  *   one, the mean of the cross peaks' F2 or F1 positions of that atom's label;
- * - signals: atoms whose shift falls in the same 1D multiplet are one signal (`m` with the range);
- * - proton counts: integral / unit, the unit being the largest per-proton integral that makes every
- *   signal whole within 0.2 (protonUnit); without a 1D spectrum every atom counts 1;
+ * - signals: atoms whose shift falls in the same 1D multiplet (or the chemist's region) are one
+ *   signal (`m` with the range); see signals1D.ts;
+ * - proton counts: integral / unit, the unit from the chemist's integral reference pick, else the
+ *   largest per-proton integral that makes every signal whole within 0.2 (protonUnit); without a
+ *   1D spectrum every atom counts 1;
  * - J of one atom to partners within 0.5 Hz of each other (about a linewidth, so the 1D shows one
  *   splitting) are one group: "t, J = 7.0 Hz" instead of "dd, J = 7.1, 6.9 Hz";
  * - a coupling flagged second_order_suspected, or a 1D multiplet that analyseMultiplet flags
@@ -14,10 +16,9 @@
  */
 import type { CouplingNetwork, NetworkSource } from '../network/network';
 import type { Coupling } from '../sidecar/types';
-import { pickMultiplets1D } from '../peaks/multiplets1D';
-import { naturalCompare } from '../sidecar/decimal';
 import type { Spectrum1D } from '../spectrum/spectrum';
-import { analyseMultiplet, integrateRegion, type KnownPartner, type MultipletAnalysis } from './multiplet';
+import { analyseMultiplet, type KnownPartner, type MultipletAnalysis } from './multiplet';
+import { integralUnit, signalsFrom, type DerivedSignal } from './signals1D';
 import type { SiCoupling, SiEntry } from './siLine';
 
 export interface DeriveInput {
@@ -29,17 +30,6 @@ export interface DeriveInput {
   noteLabels?: readonly string[];
   /** J values closer than this are one splitting group (default 0.5 Hz). */
   groupHz?: number;
-}
-
-export interface DerivedSignal {
-  labels: string[];
-  ppm: number;
-  fromPpm: number | null;
-  toPpm: number | null;
-  integral: number | null;
-  analysis: MultipletAnalysis | null;
-  /** The analysed 1D region (ppm, with tails), when the signal has a 1D multiplet. */
-  region?: [number, number];
 }
 
 export interface DerivedSi {
@@ -56,8 +46,6 @@ export interface DerivedSi {
 }
 
 const SECOND_ORDER_FLAGS = new Set(['second_order_suspected', 'second-order']);
-/** Extra width on each side of a 1D multiplet's outer lines for its integral (Lorentzian tails), Hz. */
-const TAIL_HZ = 6;
 
 /** Mean shift per atom label over all picks of all sources. */
 export function atomShifts(sources: readonly NetworkSource[]): Map<string, number> {
@@ -85,46 +73,6 @@ export function atomShifts(sources: readonly NetworkSource[]): Map<string, numbe
   return new Map([...acc].map(([k, v]) => [k, v.reduce((a, b) => a + b, 0) / v.length]));
 }
 
-/**
- * The largest per-proton unit u such that every integral / u is within 0.2 of a whole number ≥ 1;
- * candidates are each integral divided by 1..6. Null when none fits.
- */
-export function protonUnit(integrals: readonly number[]): number | null {
-  const pos = integrals.filter((x) => x > 0);
-  const cands = pos.flatMap((x) => [1, 2, 3, 4, 5, 6].map((n) => x / n)).sort((a, b) => b - a);
-  for (const u of cands) {
-    if (pos.every((x) => x / u >= 0.8 && Math.abs(x / u - Math.round(x / u)) <= 0.2)) return u;
-  }
-  return null;
-}
-
-function signalsFrom(shifts: Map<string, number>, s: Spectrum1D | undefined): DerivedSignal[] {
-  const atoms = [...shifts.keys()].sort(naturalCompare);
-  if (!s) return atoms.map((a) => ({ labels: [a], ppm: shifts.get(a) ?? 0, fromPpm: null, toPpm: null, integral: null, analysis: null }));
-  const { multiplets } = pickMultiplets1D(s);
-  const tail = TAIL_HZ / s.axis.observeMhz;
-  const out: DerivedSignal[] = [];
-  const used = new Set<string>();
-  multiplets.forEach((m, i) => {
-    const labels = atoms.filter((a) => {
-      const x = shifts.get(a) ?? Number.NaN;
-      return x <= m.fromPpm + tail && x >= m.toPpm - tail;
-    });
-    if (labels.length === 0) return;
-    labels.forEach((l) => used.add(l));
-    // Integrate to the outer lines plus the tails, but never past the midpoint to a neighbouring multiplet.
-    const up = multiplets[i - 1];
-    const down = multiplets[i + 1];
-    const from = Math.min(m.fromPpm + tail, up ? (up.toPpm + m.fromPpm) / 2 : Infinity);
-    const to = Math.max(m.toPpm - tail, down ? (down.fromPpm + m.toPpm) / 2 : -Infinity);
-    out.push({ labels, ppm: m.ppm, fromPpm: m.fromPpm, toPpm: m.toPpm, integral: integrateRegion(s, from, to), analysis: null, region: [from, to] });
-  });
-  for (const a of atoms) {
-    if (!used.has(a)) out.push({ labels: [a], ppm: shifts.get(a) ?? 0, fromPpm: null, toPpm: null, integral: null, analysis: null });
-  }
-  return out;
-}
-
 /** Derive the SI entries (see the module comment for every choice made). */
 export function deriveSiEntries(input: DeriveInput): DerivedSi {
   const groupHz = input.groupHz ?? 0.5;
@@ -136,10 +84,8 @@ export function deriveSiEntries(input: DeriveInput): DerivedSi {
   for (const a of input.network.atoms) {
     if (!shifts.has(a)) notes.push(`${a}: has couplings but no pick gives its shift; not in the SI line.`);
   }
-  const signals = signalsFrom(shifts, input.spectrum1D);
-  const measured = signals.map((g) => g.integral).filter((x): x is number => x !== null);
-  const unit = input.spectrum1D ? protonUnit(measured) : null;
-  if (input.spectrum1D && unit === null) notes.push('the 1D integrals do not fit whole proton counts; each atom counted as 1 H.');
+  const signals = signalsFrom(shifts, input.spectrum1D, input.sources);
+  const unit = input.spectrum1D ? integralUnit(signals, input.sources, notes) : null;
   if (!input.spectrum1D) notes.push('no 1D spectrum: proton counts are not measured; each atom counted as 1 H.');
   const protonsOf = (g: DerivedSignal): number => (g.integral !== null && unit !== null ? Math.max(1, Math.round(g.integral / unit)) : g.labels.length);
   const signalOf = new Map<string, DerivedSignal>();

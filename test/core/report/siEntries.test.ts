@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { buildNetwork } from '../../../src/core/network';
 import { compoundReport } from '../../../src/core/report/compound';
-import { atomShifts, deriveSiEntries, protonUnit } from '../../../src/core/report/siEntries';
+import { atomShifts, deriveSiEntries } from '../../../src/core/report/siEntries';
+import { protonUnit } from '../../../src/core/report/signals1D';
 import type { Coupling, Pick, Sidecar } from '../../../src/core/sidecar/types';
 import { simulate1D } from '../../../src/core/simulate/simulate1D';
 import type { SpinSystem } from '../../../src/core/simulate/spinSystem';
