@@ -1,5 +1,6 @@
 /** Markdown for the demo scenario: the samples README and one structure note per compound. */
 import type { SampleCompound } from './sampleScenario';
+import { karplusFrontMatter, karplusText } from './sampleKarplus';
 import { structureFrontMatter } from './sampleStructures';
 
 export function structureNote(c: SampleCompound): string {
@@ -11,6 +12,7 @@ export function structureNote(c: SampleCompound): string {
     'solvent: CDCl3',
     // The molfile and label -> H atom numbers for the NMReDATA export (scripts/sampleStructures.ts).
     ...structureFrontMatter(c.id),
+    ...karplusFrontMatter(c.id),
     '---',
     '',
     `# ${c.name}`,
@@ -24,6 +26,7 @@ export function structureNote(c: SampleCompound): string {
     ...rows,
     '',
     'Coupling constants: to be measured from `cosy.jdx` (checked against `1h.jdx`).',
+    ...karplusText(c.id),
     '',
   ].join('\n');
 }
