@@ -10,6 +10,7 @@ import { SOLVENT_MISSING } from '../core/report/compound';
 import { checkCompound, type CheckOptions, type CompoundInput, type NoteInput, type Problem } from '../core/review/check';
 import { parseSidecar } from '../core/sidecar';
 import { labelsInMarkdown } from '../core/notes/labels';
+import { readStructureRef } from '../core/structure/structureRef';
 import { findCompounds, SIDECAR } from './compounds';
 import { EXIT_MEASURE_FAILED, EXIT_OK, InputError } from './errors';
 import type { CliIo } from './io';
@@ -37,6 +38,20 @@ function sha256Of(path: string): string | null {
   }
 }
 
+/** The note with the molfile its front matter names (read here: the rules are pure). */
+function withMolfile(folder: string, note: NoteInput): NoteInput {
+  const ref = readStructureRef(note.text);
+  if (ref.structure === null) return note;
+  const file = join(folder, ref.structure);
+  let text: string | null;
+  try {
+    text = readFileSync(file, 'utf8');
+  } catch {
+    text = null;
+  }
+  return { ...note, molfile: { file, text } };
+}
+
 /** What the pure rules need for one folder: sidecars with their data hash, notes, labels. */
 export function readCompound(folder: string, sidecarFiles: readonly string[]): CompoundInput {
   const sidecars = sidecarFiles.map((file) => {
@@ -45,7 +60,7 @@ export function readCompound(folder: string, sidecarFiles: readonly string[]): C
     return { file, text, dataSha256: sha256Of(join(folder, dataName)) };
   });
   const notes: NoteInput[] = readdirSync(folder).sort().filter((n) => NOTE.test(n))
-    .map((n) => ({ file: join(folder, n), text: readText(join(folder, n)) }));
+    .map((n) => withMolfile(folder, { file: join(folder, n), text: readText(join(folder, n)) }));
   if (notes.length === 0) return { sidecars, notes };
   return { sidecars, notes, knownLabels: new Set(notes.flatMap((n) => labelsInMarkdown(n.text))) };
 }

@@ -75,7 +75,7 @@ describe('couplet check', () => {
   it('passes on a sample folder given a sidecar with its real hash and the labels of its notes', () => {
     const dir = mkdtempSync(join(tmpdir(), 'couplet-check-sample-'));
     dirs.push(dir);
-    for (const f of ['cosy.jdx', 'brisquarene.md']) copyFileSync(join(samples, 'brisquarene', f), join(dir, f));
+    for (const f of ['cosy.jdx', 'brisquarene.md', 'brisquarene.mol']) copyFileSync(join(samples, 'brisquarene', f), join(dir, f));
     const s: Sidecar = {
       schema: 'couplet-sidecar/1', data: { file: 'cosy.jdx', sha256: sha(readFileSync(join(dir, 'cosy.jdx'))) },
       picks: [{ id: 'p-7.2100-6.8600', f2Ppm: 7.21, f1Ppm: 6.86, label: ['H-5', 'H-6'], kind: 'cross' }],
@@ -90,7 +90,7 @@ describe('couplet check', () => {
   it('stale SI: a region that differs from what couplet report gives is an error at its begin marker; the current line passes', () => {
     const dir = mkdtempSync(join(tmpdir(), 'couplet-check-si-'));
     dirs.push(dir);
-    for (const f of ['cosy.jdx', 'brisquarene.md']) copyFileSync(join(samples, 'brisquarene', f), join(dir, f));
+    for (const f of ['cosy.jdx', 'brisquarene.md', 'brisquarene.mol']) copyFileSync(join(samples, 'brisquarene', f), join(dir, f));
     const s: Sidecar = {
       schema: 'couplet-sidecar/1', data: { file: 'cosy.jdx', sha256: sha(readFileSync(join(dir, 'cosy.jdx'))) },
       picks: [{ id: 'p-7.2100-6.8600', f2Ppm: 7.21, f1Ppm: 6.86, label: ['H-5', 'H-6'], kind: 'cross' }],
@@ -194,5 +194,28 @@ describe('couplet check', () => {
     const r = run('check', join(samples, 'brisquarene', 'cosy.jdx'));
     expect(r.code).toBe(2);
     expect(r.err).toContain('not a sidecar');
+  });
+});
+
+describe('couplet check: the structure note\'s front matter (the readers of couplet report)', () => {
+  it('reports a bad karplus ξ and an atom number that is not an H atom at their lines (rule front-matter, exit 1)', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'couplet-check-front-'));
+    dirs.push(dir);
+    for (const f of ['cosy.jdx', '1h.jdx', 'cosy.jdx.couplet.yaml', '1h.jdx.couplet.yaml', 'quellopyranol.mol']) copyFileSync(join(samples, 'quellopyranol', f), join(dir, f));
+    const good = readFileSync(join(samples, 'quellopyranol', 'quellopyranol.md'), 'utf8');
+    writeFileSync(join(dir, 'quellopyranol.md'), good);
+    expect(json(dir).problems).toEqual([]);
+    // Atom 3 of the sample molfile is a ring carbon (heavy atoms are numbered by locant, scripts/sampleStructures.ts).
+    const bad = good.replace('H-2: 11,', 'H-2: 3,').replace('    orientation: [-1, -1, +1]\n', '    orientation: [-1, -1, 2]\n');
+    writeFileSync(join(dir, 'quellopyranol.md'), bad);
+    const r = run('check', dir, '--format', 'json');
+    expect(r.code).toBe(1);
+    const p = (JSON.parse(r.out) as Json).problems;
+    expect(p.map((x) => [x.rule, x.line])).toEqual([['front-matter', lineOf(bad, 'atoms: {')], ['front-matter', lineOf(bad, 'orientation: [-1, -1, 2]')]]);
+    expect(p[0]?.message).toMatch(/^atoms\.H-2: atom 3 of quellopyranol\.mol is C, not H/);
+    expect(p[1]?.message).toMatch(/^karplus\[1\]\.orientation\[2\]: must be \+1 or -1, got 2/);
+    rmSync(join(dir, 'quellopyranol.mol'));
+    writeFileSync(join(dir, 'quellopyranol.md'), good);
+    expect(json(dir).problems.map((x) => x.message)).toEqual(['structure: cannot read quellopyranol.mol beside the note']);
   });
 });

@@ -5,6 +5,7 @@
 import { labelMatches } from '../../core/notes/labels';
 import type { FrontMatter } from '../../core/notes/frontMatter';
 import type { KarplusProblem } from '../../core/notes/karplusRequests';
+import type { NoteProblem as StructureProblem } from '../../core/structure/structureRef';
 import type { LabelIndex } from './labelIndex';
 
 export interface NoteProblem {
@@ -12,13 +13,24 @@ export interface NoteProblem {
   readonly length: number;
   readonly severity: 'error' | 'warning' | 'info';
   readonly message: string;
-  readonly code: 'unassigned-label' | 'unreadable-sidecar' | 'front-matter' | 'inconsistent-j' | 'karplus-request';
+  readonly code: 'unassigned-label' | 'unreadable-sidecar' | 'front-matter' | 'inconsistent-j' | 'karplus-request' | 'structure';
 }
 
 /** A disagreement the coupling network found (core/network: two measurements of one pair differ). */
 export interface PairProblem {
   readonly atoms: readonly [string, string];
   readonly message: string;
+}
+
+/** Offset of the start of a 1-based line (the end of the text past the last line). */
+function lineStart(text: string, line: number): number {
+  let at = 0;
+  for (let l = 1; l < line; l++) {
+    const next = text.indexOf('\n', at);
+    if (next < 0) return text.length;
+    at = next + 1;
+  }
+  return at;
 }
 
 /**
@@ -28,8 +40,15 @@ export interface PairProblem {
  */
 export function noteProblems(
   text: string, front: FrontMatter, index: LabelIndex, pairs: readonly PairProblem[] = [], karplus: readonly KarplusProblem[] = [],
+  structure: readonly StructureProblem[] = [],
 ): NoteProblem[] {
   const out: NoteProblem[] = [];
+  // `structure:`/`atoms:` problems stop the NMReDATA export (couplet report exits 2): shown on their line.
+  for (const p of structure) {
+    const start = lineStart(text, p.line);
+    const end = text.indexOf('\n', start);
+    out.push({ offset: start, length: (end < 0 ? text.length : end) - start, severity: 'error', message: `${p.field}: ${p.message}`, code: 'structure' });
+  }
   if (front.problem !== null) out.push({ offset: 0, length: 3, severity: 'warning', message: front.problem, code: 'front-matter' });
   // An error, as in `couplet report` (exit 2): a mistyped request would otherwise give no angles, silently.
   for (const k of karplus) out.push({ offset: k.offset, length: k.length, severity: 'error', message: `${k.field}: ${k.message}`, code: 'karplus-request' });

@@ -9,6 +9,7 @@ import { labelMatches } from '../../core/notes/labels';
 import { readSettings } from '../settings';
 import { readFrontMatter } from '../../core/notes/frontMatter';
 import { readKarplusRequests } from '../../core/notes/karplusRequests';
+import { readStructureRef } from '../../core/structure/structureRef';
 import type { KarplusEstimate } from '../../core/report/karplusReport';
 import { hoverText } from './hoverText';
 import { labelCompletions, labelPrefixStart } from './labelCompletion';
@@ -97,7 +98,7 @@ class NoteDiagnostics implements vscode.Disposable {
     const sidecars = await compoundSidecars(doc.uri);
     const pairs = front.compound === null ? [] : await this.analysis.pairProblems(doc, front.compound).catch(() => []);
     const karplus = readKarplusRequests(text, doc.uri.path.split('/').pop() ?? 'note').problems;
-    const problems = noteProblems(text, front, buildLabelIndex(sidecars), pairs, karplus);
+    const problems = noteProblems(text, front, buildLabelIndex(sidecars), pairs, karplus, readStructureRef(text).problems);
     if (doc.isClosed || doc.getText() !== text) return; // a newer refresh is on its way
     this.collection.set(doc.uri, problems.map((p) => {
       const d = new vscode.Diagnostic(new vscode.Range(doc.positionAt(p.offset), doc.positionAt(p.offset + p.length)), p.message,

@@ -5,6 +5,7 @@ import { hoverText } from '../../../src/extension/notes/hoverText';
 import { labelCompletions, labelPrefixStart } from '../../../src/extension/notes/labelCompletion';
 import { buildLabelIndex, shiftOf } from '../../../src/extension/notes/labelIndex';
 import { noteProblems } from '../../../src/extension/notes/noteDiagnostics';
+import { readStructureRef } from '../../../src/core/structure/structureRef';
 
 const HASH = 'ab'.repeat(32);
 
@@ -101,6 +102,15 @@ describe('noteProblems', () => {
     expect(noteProblems(note, readFrontMatter(note), with1D).every((x) => x.severity === 'warning')).toBe(true);
     const none = noteProblems(note, readFrontMatter(note), buildLabelIndex([]));
     expect(none.map((x) => x.message)[0]).toBe('H-3 is not assigned: no spectrum of this compound has a sidecar yet');
+  });
+
+  it('shows a structure reference problem (structure:/atoms:) as an error over its whole line', () => {
+    const bad = '---\ncompound: demo\nstructure: demo.mol\natoms: { H-3: x }\n---\nH-3.\n';
+    const p = noteProblems(bad, readFrontMatter(bad), buildLabelIndex([{ fileName: 'c', text: cosy() }]), [], [], readStructureRef(bad).problems);
+    const s = p.filter((x) => x.code === 'structure');
+    expect(s.map((x) => [bad.slice(x.offset, x.offset + x.length), x.severity, x.message])).toEqual([
+      ['atoms: { H-3: x }', 'error', 'atoms.H-3: expected an atom number (1, 2, ...) or a list of them'],
+    ]);
   });
 
   it('leaves a note without a compound id alone', () => {

@@ -2,12 +2,14 @@
 import { hiddenFlagRule, siRegions, staleSiRule } from './siRules';
 import { repeatedJRule } from './jRules';
 import { labelRule, schemaAndHashRule } from './sidecarRules';
+import { frontMatterRule } from './noteRules';
 import type { CompoundInput, Problem } from './types';
 
 export * from './types';
 export { hiddenFlagRule, siRegions, staleSiRule, type SiRegion } from './siRules';
 export { repeatedJRule, AGREEMENT_SIGMAS } from './jRules';
 export { labelRule, schemaAndHashRule, type CheckedSidecar } from './sidecarRules';
+export { frontMatterRule } from './noteRules';
 
 export interface CheckOptions {
   /** The SI text a region of this kind in this note should hold now (issue 5's formatter), when known. */
@@ -25,6 +27,7 @@ export function checkCompound(input: CompoundInput, options: CheckOptions = {}):
     ...repeatedJRule(checked),
     ...hiddenFlagRule(regions, checked),
     ...(options.expectedSi === undefined ? [] : staleSiRule(regions, options.expectedSi)),
+    ...input.notes.flatMap(frontMatterRule),
   ];
   return problems.sort((a, b) => (a.file < b.file ? -1 : a.file > b.file ? 1 : a.line - b.line || a.column - b.column));
 }

@@ -1,7 +1,7 @@
 /** What `couplet check` (and the editor's diagnostics) report: one problem at one file and line. */
 import type { Severity } from '../../sidecar/types';
 
-export type CheckRule = 'schema' | 'data-hash' | 'labels' | 'repeated-j' | 'hidden-flags' | 'stale-si';
+export type CheckRule = 'schema' | 'data-hash' | 'labels' | 'repeated-j' | 'hidden-flags' | 'stale-si' | 'front-matter';
 
 export interface Problem {
   readonly file: string;
@@ -26,6 +26,8 @@ export interface SidecarInput {
 export interface NoteInput {
   readonly file: string;
   readonly text: string;
+  /** The molfile its front matter names (`structure:`), as the caller read it (text null: unreadable); absent skips the atom check. */
+  readonly molfile?: { readonly file: string; readonly text: string | null };
 }
 
 /** A compound folder: its sidecars and its structure notes (markdown or LaTeX). */
