@@ -91,7 +91,8 @@ describe('activate', () => {
     // Everything registered is handed to VS Code for disposal on deactivate: the commands, the output
     // channel, the sidecar diagnostics, the editor, the tab watcher, and the notes' 10 (their
     // diagnostics, file watcher, two providers, three document and three watcher events), and the
-    // check diagnostics' 4 (collection, open and save events, quick-fix provider).
-    expect(subscriptions.length).toBe(rec.commands.length + 4 + 10 + 4);
+    // check diagnostics' 4 (collection, open and save events, quick-fix provider), and the worker of
+    // the notes' compound reports (1).
+    expect(subscriptions.length).toBe(rec.commands.length + 4 + 10 + 4 + 1);
   });
 });
