@@ -3,7 +3,7 @@ import { copyFileSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from '
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { afterEach, describe, expect, it } from 'vitest';
-import { runCli } from '../../src/cli/program';
+import { run } from './helpers';
 import { formatSidecar, type Coupling, type Sidecar } from '../../src/core/sidecar';
 
 const samples = resolve(__dirname, '..', '..', 'samples');
@@ -48,12 +48,6 @@ function compound(sidecarText: string, files: Record<string, string> = {}): { di
   return { dir, file };
 }
 
-function run(...argv: string[]): { code: number; out: string; err: string } {
-  let out = '';
-  let err = '';
-  const code = runCli(argv, { out: (t) => (out += t), err: (t) => (err += t) });
-  return { code, out, err };
-}
 
 /** 1-based line of the only line containing `needle` (the seeded problem). */
 function lineOf(text: string, needle: string): number {

@@ -1,18 +1,12 @@
 import { existsSync, readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { runCli } from '../../src/cli/program';
+import { run } from './helpers';
 
 const repo = resolve(__dirname, '..', '..');
 const checks = resolve(repo, '..', 'shared', 'checks');
 const indep = resolve(checks, 'jcamp2d', 'indep_dqfcosy_sqz.jdx');
 
-function run(...argv: string[]): { code: number; out: string; err: string } {
-  let out = '';
-  let err = '';
-  const code = runCli(argv, { out: (t) => (out += t), err: (t) => (err += t) });
-  return { code, out, err };
-}
 
 interface TruthAxis { n: number; first_hz: number; last_hz: number; first_ppm: number; last_ppm: number }
 interface Truth { observe_mhz: number; axes: { f1: TruthAxis; f2: TruthAxis }; cross_peaks: { f1_ppm: number; f2_ppm: number; j_active_hz: number }[] }

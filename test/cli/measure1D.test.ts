@@ -1,17 +1,11 @@
 import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { runCli } from '../../src/cli/program';
+import { run } from './helpers';
 import type { MultipletAnalysisJson } from '../../src/cli/measure1D';
 
 const sample = (name: string, file: string): string => resolve(__dirname, '..', '..', 'samples', name, file);
 
-function run(...argv: string[]): { code: number; out: string; err: string } {
-  let out = '';
-  let err = '';
-  const code = runCli(argv, { out: (t) => (out += t), err: (t) => (err += t) });
-  return { code, out, err };
-}
 
 interface Truth { system: { couplings: { a: string; b: string; jHz: number }[] } }
 const truth = JSON.parse(readFileSync(sample('quellopyranol', 'truth.json'), 'utf8')) as Truth;

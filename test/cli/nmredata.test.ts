@@ -4,40 +4,17 @@
  * tag format 1.1 (NMReDATA Initiative wiki, nmredata.org, and Pupier et al., Magn. Reson. Chem. 56
  * (2018) 703), and pinned as a snapshot.
  */
-import { cpSync, existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { cpSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { Molecule } from 'openchemlib';
 import { parse as parseSdf } from 'sdf-parser';
 import { afterAll, describe, expect, it } from 'vitest';
-import { runCli } from '../../src/cli/program';
+import { expectSnapshot, run } from './helpers';
 
 const repo = resolve(__dirname, '..', '..');
 const samples = join(repo, 'samples');
-const snapshots = join(__dirname, '__snapshots__');
 
-function run(...argv: string[]): { code: number; out: string; err: string } {
-  let out = '';
-  let err = '';
-  const code = runCli(argv, { out: (t) => (out += t), err: (t) => (err += t) });
-  return { code, out, err };
-}
-
-/** Compares with the stored snapshot; on mismatch writes `<name>-changed.<ext>` beside it and fails. */
-function expectSnapshot(name: string, ext: string, text: string): void {
-  const file = join(snapshots, `${name}.${ext}`);
-  const changed = join(snapshots, `${name}-changed.${ext}`);
-  if (!existsSync(file)) {
-    if (process.env.CI) expect.fail(`snapshot ${file} is missing`);
-    mkdirSync(snapshots, { recursive: true });
-    writeFileSync(file, text);
-  }
-  if (readFileSync(file, 'utf8') !== text) {
-    writeFileSync(changed, text);
-    expect.fail(`NMReDATA export changed: compare ${name}-changed.${ext} with ${name}.${ext}`);
-  }
-  if (existsSync(changed)) rmSync(changed);
-}
 
 /** Value lines of a tag as sdf-parser returns it, without the `\` terminators ("End-of-line"). */
 const valueLines = (v: unknown): string[] => String(v).split('\n').map((l) => l.replace(/\\$/, '')).filter((l) => l !== '');
@@ -145,7 +122,7 @@ describe('couplet report --format nmredata on the samples', () => {
   });
 
   it('matches the pinned export (snapshot; regenerate after changing samples or the SI derivation)', () => {
-    expectSnapshot('report-samples.nmredata', 'sdf', r.out);
+    expectSnapshot('report-samples.nmredata', 'sdf', r.out, 'NMReDATA export');
   });
 });
 

@@ -1,25 +1,18 @@
 import { spawnSync } from 'node:child_process';
 import { createHash } from 'node:crypto';
-import { copyFileSync, existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { copyFileSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { runCli } from '../../src/cli/program';
+import { expectSnapshot, run } from './helpers';
 import { renderSvg } from '../../src/cli/render';
 import { formatSidecar, type Sidecar } from '../../src/core/sidecar';
 
 const samples = resolve(__dirname, '..', '..', 'samples');
-const snapshots = join(__dirname, '__snapshots__');
 let dir = '';
 let data = '';
 const size = { width: 640, height: 480 };
 
-function run(...argv: string[]): { code: number; out: string; err: string } {
-  let out = '';
-  let err = '';
-  const code = runCli(argv, { out: (t) => (out += t), err: (t) => (err += t) });
-  return { code, out, err };
-}
 
 function git(...args: string[]): void {
   const r = spawnSync('git', args, { cwd: dir, encoding: 'utf8' });
@@ -72,30 +65,13 @@ beforeAll(() => {
 });
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
-/** Compares with the stored snapshot; on mismatch writes `<name>-changed.svg` beside it and fails. */
-function expectSnapshot(name: string, svg: string): void {
-  const file = join(snapshots, `${name}.svg`);
-  const changed = join(snapshots, `${name}-changed.svg`);
-  if (!existsSync(file)) {
-    // Written once locally; in CI a missing snapshot means it was lost, which must fail.
-    if (process.env.CI) expect.fail(`snapshot ${file} is missing`);
-    mkdirSync(snapshots, { recursive: true });
-    writeFileSync(file, svg);
-  }
-  if (readFileSync(file, 'utf8') !== svg) {
-    writeFileSync(changed, svg);
-    expect.fail(`picture changed: compare ${name}-changed.svg with ${name}.svg`);
-  }
-  rmSync(changed, { force: true });
-}
-
 describe('couplet render', () => {
   it('draws the brisquarene sample with its picks and J values (snapshot)', () => {
     writeFileSync(`${data}.couplet.yaml`, formatSidecar(before()));
     const svg = renderSvg(data, size);
     expect(svg).toContain('J 8.47±0.05 Hz');
     expect(svg).toContain('>H-5/H-3<');
-    expectSnapshot('brisquarenePicks', svg);
+    expectSnapshot('brisquarenePicks', 'svg', svg, 'picture');
   });
 
   it('overlays the changes since HEAD, each kind distinct, with a legend and a list (snapshot)', () => {
@@ -105,7 +81,7 @@ describe('couplet render', () => {
       'moved 7.3600/7.2000 -&gt;', 're-measured: 8.47 ± 0.05 Hz']) {
       expect(svg).toContain(s);
     }
-    expectSnapshot('brisquareneCompare', svg);
+    expectSnapshot('brisquareneCompare', 'svg', svg, 'picture');
   });
 
   it('puts high F2 ppm on the left (tick labels fall from left to right)', () => {

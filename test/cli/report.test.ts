@@ -1,35 +1,12 @@
-import { cpSync, existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { cpSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { runCli } from '../../src/cli/program';
+import { expectSnapshot, run } from './helpers';
 
 const repo = resolve(__dirname, '..', '..');
 const samples = join(repo, 'samples');
-const snapshots = join(__dirname, '__snapshots__');
 
-function run(...argv: string[]): { code: number; out: string; err: string } {
-  let out = '';
-  let err = '';
-  const code = runCli(argv, { out: (t) => (out += t), err: (t) => (err += t) });
-  return { code, out, err };
-}
-
-/** Compares with the stored snapshot; on mismatch writes `<name>-changed.<ext>` beside it and fails. */
-function expectSnapshot(name: string, ext: string, text: string): void {
-  const file = join(snapshots, `${name}.${ext}`);
-  const changed = join(snapshots, `${name}-changed.${ext}`);
-  if (!existsSync(file)) {
-    if (process.env.CI) expect.fail(`snapshot ${file} is missing`);
-    mkdirSync(snapshots, { recursive: true });
-    writeFileSync(file, text);
-  }
-  if (readFileSync(file, 'utf8') !== text) {
-    writeFileSync(changed, text);
-    expect.fail(`report changed: compare ${name}-changed.${ext} with ${name}.${ext} (re-generate the samples' sidecars with npm run samples:sidecars)`);
-  }
-  rmSync(changed, { force: true });
-}
 
 describe('couplet report on the samples (every invented compound has a note, spectra and sidecars)', () => {
   const md = run('report', samples);
@@ -40,13 +17,13 @@ describe('couplet report on the samples (every invented compound has a note, spe
     expect(md.out.match(/¹H NMR \(\d+ MHz, CDCl₃\) δ /g)).toHaveLength(3);
   });
 
-  it('pins the markdown report (snapshot)', () => expectSnapshot('report-samples', 'md', md.out));
+  it('pins the markdown report (snapshot)', () => expectSnapshot('report-samples', 'md', md.out, 'report', ' (re-generate the samples\' sidecars with npm run samples:sidecars)'));
 
   it('pins the LaTeX lines (snapshot): \\textit{J}, \\,Hz, $^{1}$H', () => {
     const tex = run('report', samples, '--format', 'tex');
     expect(tex.code).toBe(0);
     expect(tex.out).toContain('$^{1}$H NMR (500\\,MHz, CDCl$_{3}$) $\\delta$ ');
-    expectSnapshot('report-samples', 'tex', tex.out);
+    expectSnapshot('report-samples', 'tex', tex.out, 'report', ' (re-generate the samples\' sidecars with npm run samples:sidecars)');
   });
 
   it('json carries the SI line and the numbers behind it; csv one row per measurement', () => {

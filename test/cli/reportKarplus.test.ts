@@ -1,29 +1,13 @@
-import { cpSync, existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { cpSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { runCli } from '../../src/cli/program';
+import { expectSnapshot } from './helpers';
 import { buildReports, formatReports } from '../../src/cli/report';
 import { toFixedDecimal } from '../../src/core/sidecar';
 
 const samples = resolve(__dirname, '..', '..', 'samples');
-const snapshots = join(__dirname, '__snapshots__');
-
-/** Compares with the stored snapshot; on mismatch writes `<name>-changed.<ext>` beside it and fails. */
-function expectSnapshot(name: string, ext: string, text: string): void {
-  const file = join(snapshots, `${name}.${ext}`);
-  const changed = join(snapshots, `${name}-changed.${ext}`);
-  if (!existsSync(file)) {
-    if (process.env.CI) expect.fail(`snapshot ${file} is missing`);
-    mkdirSync(snapshots, { recursive: true });
-    writeFileSync(file, text);
-  }
-  if (readFileSync(file, 'utf8') !== text) {
-    writeFileSync(changed, text);
-    expect.fail(`Karplus section changed: compare ${name}-changed.${ext} with ${name}.${ext}`);
-  }
-  rmSync(changed, { force: true });
-}
 
 describe('couplet report: dihedral estimates for the pairs quellopyranol.md requests', () => {
   const [report] = buildReports(join(samples, 'quellopyranol'));
@@ -40,20 +24,20 @@ describe('couplet report: dihedral estimates for the pairs quellopyranol.md requ
     expect(section).toMatch(/^Sources: Haasnoot, de Leeuw, Altona, Tetrahedron 36 \(1980\) 2783/m);
   });
 
-  it('pins the markdown section (snapshot)', () => expectSnapshot('report-karplus', 'md', section));
+  it('pins the markdown section (snapshot)', () => expectSnapshot('report-karplus', 'md', section, 'Karplus section'));
 
   it('pins the LaTeX block (snapshot); it is plain ASCII', () => {
     const tex = formatReports([report], 'tex');
     const block = tex.slice(tex.indexOf('\\paragraph{Dihedral estimates (Karplus).}'));
     expect(block).not.toMatch(/[^\x20-\x7e\n]/);
-    expectSnapshot('report-karplus', 'tex', block);
+    expectSnapshot('report-karplus', 'tex', block, 'Karplus section');
   });
 
   it('pins the json karplus array (snapshot): stable snake_case keys', () => {
     const j = JSON.parse(formatReports([report], 'json')) as { compounds: { karplus: Record<string, unknown>[] }[] };
     const k = j.compounds[0]!.karplus;
     expect(k.map((e) => e.relation)).toContain('Karplus 1963');
-    expectSnapshot('report-karplus', 'json', JSON.stringify(k, null, 2) + '\n');
+    expectSnapshot('report-karplus', 'json', JSON.stringify(k, null, 2) + '\n', 'Karplus section');
   });
 
   it('writes nothing about Karplus when the note asks for no pair', () => {
