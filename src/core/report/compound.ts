@@ -9,7 +9,7 @@ import type { Spectrum1D } from '../spectrum/spectrum';
 import type { KarplusRequest } from '../notes/karplusRequests';
 import { karplusJson } from './karplusFormat';
 import { karplusEstimates, type KarplusEstimate } from './karplusReport';
-import { deriveSiEntries, type DerivedSi } from './siEntries';
+import { deriveSiEntries, oneDDisagreements, type DerivedSi } from './siEntries';
 import { formatSiLine, siLineJson, siNotes, type SiHeader } from './siLine';
 
 export interface CompoundInput {
@@ -69,7 +69,7 @@ export function compoundReport(input: CompoundInput): CompoundReport {
     compound: input.compound, header, network, derived,
     siLine: { md: formatSiLine(header, derived.entries, 'md'), tex: formatSiLine(header, derived.entries, 'tex') },
     notes,
-    karplus: karplusEstimates(input.karplus ?? [], network),
+    karplus: karplusEstimates(input.karplus ?? [], network, oneDDisagreements(derived)),
   };
 }
 

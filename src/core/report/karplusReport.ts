@@ -8,6 +8,7 @@ import type { CouplingNetwork, PairEntry } from '../network/network';
 import type { KarplusRequest, KarplusSubstituent } from '../notes/karplusRequests';
 import { KARPLUS_1959_RELATION, KARPLUS_1963_RELATION, KARPLUS_CAUTION, haasnootRelation, type KarplusRelation } from './karplus';
 import { anglesForJ, type AngleInterval } from './karplusInverse';
+import type { OneDDisagreement } from './siEntries';
 
 /** Width of the band, in standard deviations of the adopted J. */
 export const KARPLUS_K = 2;
@@ -91,8 +92,14 @@ function notMeasured(pair: readonly [string, string], net: CouplingNetwork): str
   return `J(${pair[0]}, ${pair[1]}) is not measured in this compound's sidecars${why}: no angle can be estimated.`;
 }
 
-/** One estimate per request, in the note's order. */
-export function karplusEstimates(requests: readonly KarplusRequest[], net: CouplingNetwork): KarplusEstimate[] {
+/** The 1D multiplet of either atom reading another J for this pair (siEntries.oneDDisagreements). */
+function oneDDoubts(pair: readonly [string, string], oneD: readonly OneDDisagreement[]): string[] {
+  return oneD.filter((d) => (d.atom === pair[0] && d.partner === pair[1]) || (d.atom === pair[1] && d.partner === pair[0]))
+    .map((d) => `the 1D multiplet of ${d.atom} reads ${d.oneDJHz.toFixed(2)} ± ${d.oneDSdHz.toFixed(2)} Hz for this pair, more than 3 combined sd and 0.2 Hz from this J: the angles inherit that doubt.`);
+}
+
+/** One estimate per request, in the note's order; `oneD`: pairs whose 1D splitting disagrees with the adopted J. */
+export function karplusEstimates(requests: readonly KarplusRequest[], net: CouplingNetwork, oneD: readonly OneDDisagreement[] = []): KarplusEstimate[] {
   return requests.map((r) => {
     const p = findPair(net, r.pair);
     const base = { pair: r.pair, k: KARPLUS_K, caution: KARPLUS_CAUTION };
@@ -111,6 +118,7 @@ export function karplusEstimates(requests: readonly KarplusRequest[], net: Coupl
     ];
     const notes = [
       ...doubts(p),
+      ...oneDDoubts(r.pair, oneD),
       `The band is J ± ${KARPLUS_K}σ of the measurement only; the relations' own scatter is not included.`,
     ];
     return { ...base, jHz: j, sdHz: sd, method: p.adopted.method, flags: [...p.adopted.flags], relations, notes };

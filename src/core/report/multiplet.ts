@@ -46,7 +46,7 @@ export interface CosyCheck {
   cosySdHz: number;
   oneDJHz: number;
   oneDSdHz: number;
-  /** |ΔJ| ≤ 3·√(σ1² + σ2²) (agreement within three combined standard deviations). */
+  /** |ΔJ| ≤ max(3·√(σ1² + σ2²), 0.2 Hz): within three combined standard deviations, or below what J is reported to. */
   agrees: boolean;
 }
 
@@ -82,6 +82,8 @@ const ROOF_ASYMMETRY = 0.1;
 /** Largest acceptable relative intensity misfit of a first-order tree (clean simulated multiplets: below 0.05; the AB quartet at Δν/J = 2 against a dd: 0.45). */
 const MAX_INTENSITY_RMS = 0.15;
 const SECOND_ORDER_RATIO = 10;
+/** 1D and COSY J closer than this agree whatever their σ (see checkPartners). */
+const AGREE_FLOOR_HZ = 0.2;
 /** Maxima above this many noise sd seed the lineshape fit (8 for the reported lines). */
 const SEED_LEVEL_NOISE = 4;
 /** A lineshape misfit is flagged when χ²_red exceeds this ... */
@@ -311,7 +313,9 @@ function checkPartners(
     }
     if (p.jHz === undefined || !nearest) continue;
     const sd = p.sdHz ?? 0;
-    const agrees = Math.abs(nearest.jHz - Math.abs(p.jHz)) <= 3 * Math.hypot(nearest.sdHz, sd);
+    // Neither σ holds model error (near-equal J fitted as one group, lineshape), and J is reported to
+    // 0.1 Hz (common practice): a difference below AGREE_FLOOR_HZ is no disagreement worth a flag.
+    const agrees = Math.abs(nearest.jHz - Math.abs(p.jHz)) <= Math.max(3 * Math.hypot(nearest.sdHz, sd), AGREE_FLOOR_HZ);
     checks.push({ partner: p.label, cosyJHz: p.jHz, cosySdHz: sd, oneDJHz: nearest.jHz, oneDSdHz: nearest.sdHz, agrees });
     if (!agrees) {
       if (!flags.includes('cosy-disagrees')) flags.push('cosy-disagrees');

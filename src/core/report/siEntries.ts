@@ -97,6 +97,8 @@ export function deriveSiEntries(input: DeriveInput): DerivedSi {
     const recorded = g.labels.length === 1 ? couplingsOf(input.network, g.labels[0] ?? '', signalOf, protonsOf, groupHz) : [];
     collectOneD(g, recorded, oneD);
     const couplings = observed(g, recorded, notes);
+    // With the same letters, observed() has already said that the 1D and recorded J differ.
+    if (g.analysis && g.analysis.multiplicity !== lettersOf(recorded)) cosyDisagreements(g, notes);
     const secondOrder = couplings.some((c) => (c.flags ?? []).some((f) => SECOND_ORDER_FLAGS.has(f))) ||
       (g.analysis?.flags ?? []).some((f) => f === 'second-order');
     const range: [number, number] | undefined = g.fromPpm !== null && g.toPpm !== null ? [g.fromPpm, g.toPpm] : spanOf(g.ppm, couplings, input.spectrum1D);
@@ -203,6 +205,37 @@ function observed(g: DerivedSignal, recorded: SiCoupling[], notes: string[]): Si
       'the lineshape fit sees it as broadening, not as separate lines: confirm it before relying on it.');
   }
   return a.couplings.map((c) => ({ jHz: c.jHz, sdHz: c.sdHz, count: c.count, partners: [], flags: [] }));
+}
+
+/** A pair whose COSY J no 1D splitting of `atom`'s first-order multiplet matches within 3 combined sd. */
+export interface OneDDisagreement {
+  readonly atom: string;
+  readonly partner: string;
+  readonly oneDJHz: number;
+  readonly oneDSdHz: number;
+}
+
+export function oneDDisagreements(d: Pick<DerivedSi, 'signals'>): OneDDisagreement[] {
+  return d.signals.flatMap((g) => {
+    const a = g.analysis;
+    const atom = g.labels[0];
+    if (g.labels.length !== 1 || atom === undefined || !a || blocks(a)) return [];
+    return a.cosy.filter((c) => !c.agrees).map((c) => ({ atom, partner: c.partner, oneDJHz: c.oneDJHz, oneDSdHz: c.oneDSdHz }));
+  });
+}
+
+/**
+ * A partner's COSY J that no 1D splitting matches within 3 combined sd: said in the report, since
+ * the J table and the dihedral estimates still use the COSY value (a first-order 1D multiplet only).
+ */
+function cosyDisagreements(g: DerivedSignal, notes: string[]): void {
+  const a = g.analysis;
+  if (g.labels.length !== 1 || !a || blocks(a)) return;
+  for (const c of a.cosy.filter((x) => !x.agrees)) {
+    notes.push(`${g.labels[0] ?? ''}: J to ${c.partner} is ${Math.abs(c.cosyJHz).toFixed(2)} ± ${c.cosySdHz.toFixed(2)} Hz in the COSY, but the nearest ` +
+      `1D splitting is ${c.oneDJHz.toFixed(2)} ± ${c.oneDSdHz.toFixed(2)} Hz (more than 3 combined sd and 0.2 Hz apart); the J table and any dihedral ` +
+      'estimate use the COSY value: check that measurement.');
+  }
 }
 
 function spanOf(ppm: number, cs: SiCoupling[], s: Spectrum1D | undefined): [number, number] | undefined {

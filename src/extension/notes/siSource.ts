@@ -13,6 +13,7 @@ import type { Spectrum1D } from '../../core/spectrum/spectrum';
 import { labelsInMarkdown } from '../../core/notes/labels';
 import { readKarplusRequests } from '../../core/notes/karplusRequests';
 import { karplusEstimates, type KarplusEstimate } from '../../core/report/karplusReport';
+import { oneDDisagreements } from '../../core/report/siEntries';
 import { make1D } from '../../core/spectrum/spectrum';
 import { sharedCopy } from '../sharedData';
 import type { CompoundRequest } from '../workerMessages';
@@ -178,7 +179,8 @@ export class SiSource {
     const { requests } = readKarplusRequests(doc.getText(), doc.uri.path);
     if (requests.length === 0) return [];
     try {
-      return karplusEstimates(requests, (await this.compound(doc.uri, doc.getText(), compound, false)).network);
+      const report = await this.compound(doc.uri, doc.getText(), compound, false);
+      return karplusEstimates(requests, report.network, oneDDisagreements(report.derived));
     } catch {
       return [];
     }

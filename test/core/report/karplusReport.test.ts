@@ -167,3 +167,13 @@ describe('karplus text and JSON', () => {
     expect(j[0]!.substituents).toEqual([{ name: 'C', delta_chi: 0.4, xi: -1 }, { name: 'C', delta_chi: 0.4, xi: -1 }, { name: 'O', delta_chi: 1.3, xi: 1 }]);
   });
 });
+
+describe('karplusEstimates: a 1D splitting that disagrees with the adopted J is passed on', () => {
+  it('notes the 1D reading of either atom for the pair, and nothing for other pairs', () => {
+    const net = buildNetwork([{ file: 'cosy.jdx.couplet.yaml', sidecar: { ...newSidecar('cosy.jdx', HASH), couplings: [coupling('H-3', 'H-4', 9.15, 0.29), coupling('H-4', 'H-5', 4.4, 0.1)] } }]);
+    const oneD = [{ atom: 'H-4', partner: 'H-3', oneDJHz: 11.16, oneDSdHz: 0.02 }];
+    const [a, b] = karplusEstimates([{ pair: ['H-3', 'H-4'], substituents: SUBS, line: 1 }, { pair: ['H-4', 'H-5'], substituents: SUBS, line: 2 }], net, oneD);
+    expect(a?.notes).toContain('the 1D multiplet of H-4 reads 11.16 ± 0.02 Hz for this pair, more than 3 combined sd and 0.2 Hz from this J: the angles inherit that doubt.');
+    expect(b?.notes.some((n) => n.includes('1D multiplet'))).toBe(false);
+  });
+});

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { buildNetwork } from '../../../src/core/network';
 import { compoundReport } from '../../../src/core/report/compound';
-import { atomShifts, deriveSiEntries } from '../../../src/core/report/siEntries';
+import { atomShifts, deriveSiEntries, oneDDisagreements } from '../../../src/core/report/siEntries';
 import { protonUnit } from '../../../src/core/report/signals1D';
 import type { Coupling, Pick, Sidecar } from '../../../src/core/sidecar/types';
 import { simulate1D } from '../../../src/core/simulate/simulate1D';
@@ -91,6 +91,24 @@ describe('deriving SI entries with a 1D spectrum: the 1D multiplets get the COSY
     expect(h1.multiplet).toBeUndefined();
     expect(h1.couplings.map((x) => [Number(x.jHz.toFixed(1)), x.count])).toEqual([[11.2, 2], [4.5, 2]]);
     expect(d.notes.join('\n')).toMatch(/H-1: the 1D multiplet is tt \(J = 11\.2, 4\.5 Hz\), the recorded couplings give dd/);
+    expect(oneDDisagreements(d)).toEqual([]);
+  });
+
+  it('a COSY J that no 1D splitting matches (9.0 for a simulated 11.0) is named in the notes and for the dihedral estimates', () => {
+    const sys: SpinSystem = {
+      observeMhz: 600,
+      spins: [{ label: 'H-1', ppm: 4.0, linewidthHz: 1.2 }, { label: 'H-2', ppm: 1.2, linewidthHz: 1 }, { label: 'H-3', ppm: 2.4, linewidthHz: 1 }],
+      couplings: [{ a: 'H-1', b: 'H-2', jHz: 11.0 }, { a: 'H-1', b: 'H-3', jHz: 4.5 }],
+    };
+    const spectrum1D = simulate1D(sys, p, { noise: { seed: 4, snr: 1500 } }).spectrum;
+    // Only H-1/H-2 measured in the COSY (as quellopyranol H-3a/H-4): the recorded d and the 1D dd differ in letters too.
+    const src = [{ file: 'cosy.jdx.couplet.yaml', sidecar: cosyOf([['H-1', 'H-2', 9.0, 4.0, 1.2]]) }];
+    const d = deriveSiEntries({ network: buildNetwork(src), sources: src, spectrum1D });
+    expect(d.notes.join('\n')).toMatch(/H-1: the 1D multiplet is dd/);
+    expect(d.notes.join('\n')).toMatch(/H-1: J to H-2 is 9\.00 ± 0\.20 Hz in the COSY, but the nearest 1D splitting is 11\.0\d ± 0\.\d\d Hz/);
+    const [x] = oneDDisagreements(d);
+    expect(x).toMatchObject({ atom: 'H-1', partner: 'H-2' });
+    expect(Math.abs((x?.oneDJHz ?? 0) - 11.0)).toBeLessThan(0.1);
   });
 
   it('a partner 60 Hz away with J = 8 Hz (shift difference / J 7.5) makes the signal second order, though the simulated lines are first order', () => {
