@@ -94,7 +94,11 @@ function start(init: InitMessage): void {
   toolbar.spacing.set(p.contours.spacing);
   toolbar.method.set(p.method);
   toolbar.dimension.set(p.dimension);
-  toolbar.setEnabled(toolbar.dimension.element, init.spectrum.dims === 2);
+  // Contour levels and the cross-peak measurement mean nothing on a 1D trace (its analysis runs on selection).
+  const twoD = init.spectrum.dims === 2;
+  for (const el of [toolbar.dimension.element, toolbar.method.element, toolbar.measure, toolbar.measureAll, toolbar.lowest.element, toolbar.levels.element, toolbar.spacing.element]) {
+    toolbar.setEnabled(el, twoD);
+  }
   p.onReview = showChanges;
   showChanges(p.review);
   p.setSidecar(init.sidecar);
