@@ -15,7 +15,7 @@ export const FLAG_NOTES: Readonly<Record<MultipletFlag, string>> = {
   roofing: 'Roofing: the lines lean toward a strongly coupled partner (the roof effect).',
   'not-first-order': 'Not first order: no first-order splitting tree explains these lines (strong coupling or overlap); no J is given. Judge it by eye or by simulation.',
   ambiguous: 'Ambiguous: two different splitting trees explain the lines about equally well (both named below); no J is given. The COSY values or a better-resolved spectrum can decide.',
-  'cosy-disagrees': 'COSY disagrees: a J measured in the DQF-COSY differs from the nearest 1D splitting by more than 3 combined sd; check the assignment before using either.',
+  'cosy-disagrees': 'COSY disagrees: a J measured in the DQF-COSY differs from the nearest 1D splitting by more than 3 combined sd and 0.2 Hz; check the assignment before using either.',
 };
 
 export interface ViewContext {

@@ -298,6 +298,15 @@ export function areaAsymmetry(s: Spectrum1D, i0: number, fit: LineshapeFit): num
   return hi + lo > 0 ? (hi - lo) / (hi + lo) : 0;
 }
 
+/**
+ * A 1D and a COSY J agree when |ΔJ| ≤ max(3·√(σ1² + σ2²), AGREE_FLOOR_HZ). Neither σ holds model error
+ * (near-equal J fitted as one group, lineshape), and J is reported to 0.1 Hz (common practice): a
+ * difference below the floor is no disagreement worth a flag. Magnitudes are compared.
+ */
+export function jAgree(aHz: number, aSdHz: number, bHz: number, bSdHz: number): boolean {
+  return Math.abs(Math.abs(aHz) - Math.abs(bHz)) <= Math.max(3 * Math.hypot(aSdHz, bSdHz), AGREE_FLOOR_HZ);
+}
+
 function checkPartners(
   centrePpm: number, mhz: number, groups: readonly TreeGroup[], partners: readonly KnownPartner[], flags: MultipletFlag[], notes: string[],
 ): CosyCheck[] {
@@ -313,14 +322,12 @@ function checkPartners(
     }
     if (p.jHz === undefined || !nearest) continue;
     const sd = p.sdHz ?? 0;
-    // Neither σ holds model error (near-equal J fitted as one group, lineshape), and J is reported to
-    // 0.1 Hz (common practice): a difference below AGREE_FLOOR_HZ is no disagreement worth a flag.
-    const agrees = Math.abs(nearest.jHz - Math.abs(p.jHz)) <= Math.max(3 * Math.hypot(nearest.sdHz, sd), AGREE_FLOOR_HZ);
+    const agrees = jAgree(nearest.jHz, nearest.sdHz, p.jHz, sd);
     checks.push({ partner: p.label, cosyJHz: p.jHz, cosySdHz: sd, oneDJHz: nearest.jHz, oneDSdHz: nearest.sdHz, agrees });
     if (!agrees) {
       if (!flags.includes('cosy-disagrees')) flags.push('cosy-disagrees');
       notes.push(`J to ${p.label}: COSY ${Math.abs(p.jHz).toFixed(2)} ± ${sd.toFixed(2)} Hz, nearest 1D splitting ${nearest.jHz.toFixed(2)} ± ` +
-        `${nearest.sdHz.toFixed(2)} Hz: they differ by more than 3 combined sd.`);
+        `${nearest.sdHz.toFixed(2)} Hz: they differ by more than 3 combined sd and ${AGREE_FLOOR_HZ} Hz.`);
     }
   }
   return checks;

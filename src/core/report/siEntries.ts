@@ -17,7 +17,7 @@
 import type { CouplingNetwork, NetworkSource } from '../network/network';
 import type { Coupling } from '../sidecar/types';
 import type { Spectrum1D } from '../spectrum/spectrum';
-import { analyseMultiplet, type KnownPartner, type MultipletAnalysis } from './multiplet';
+import { analyseMultiplet, jAgree, type KnownPartner, type MultipletAnalysis } from './multiplet';
 import { integralUnit, signalsFrom, type DerivedSignal } from './signals1D';
 import type { SiCoupling, SiEntry } from './siLine';
 
@@ -162,7 +162,7 @@ function lettersOf(cs: readonly SiCoupling[]): string {
 /**
  * Multiplicity as observed: when the 1D multiplet has a clean first-order tree whose letters differ
  * from what the recorded couplings predict (typically couplings not yet measured in the COSY), or
- * whose J values differ from the recorded ones by more than 3 combined sd, the SI line follows the
+ * whose J values disagree with the recorded ones (jAgree: 3 combined sd, at least 0.2 Hz), the SI line follows the
  * 1D splittings (a direct observation) and a note says so; otherwise the recorded J values stand.
  */
 function collectOneD(g: DerivedSignal, recorded: SiCoupling[], out: Coupling[]): void {
@@ -188,11 +188,11 @@ function observed(g: DerivedSignal, recorded: SiCoupling[], notes: string[]): Si
     const resolved = recorded.filter((c) => !(c.flags ?? []).includes('unresolved'));
     const off = resolved.filter((c, i) => {
       const o = a.couplings[i];
-      return o !== undefined && Math.abs(o.jHz - Math.abs(c.jHz)) > 3 * Math.hypot(o.sdHz, c.sdHz ?? 0);
+      return o !== undefined && !jAgree(o.jHz, o.sdHz, c.jHz, c.sdHz ?? 0);
     });
     if (off.length === 0) return recorded;
     notes.push(`${label}: the 1D splittings (J = ${js} Hz) and the recorded J (${resolved.map((c) => Math.abs(c.jHz).toFixed(1)).join(', ')} Hz) ` +
-      'differ by more than 3 combined sd; the SI line gives the 1D values. Check the COSY measurement.');
+      'differ by more than 3 combined sd and 0.2 Hz; the SI line gives the 1D values. Check the COSY measurement.');
   } else {
     const unresolved = recorded.filter((c) => (c.flags ?? []).includes('unresolved')).flatMap((c) => c.partners ?? []);
     const why = unresolved.length > 0 ? ` (J to ${unresolved.join(', ')} flagged unresolved in the COSY)` : '';
@@ -207,7 +207,7 @@ function observed(g: DerivedSignal, recorded: SiCoupling[], notes: string[]): Si
   return a.couplings.map((c) => ({ jHz: c.jHz, sdHz: c.sdHz, count: c.count, partners: [], flags: [] }));
 }
 
-/** A pair whose COSY J no 1D splitting of `atom`'s first-order multiplet matches within 3 combined sd. */
+/** A pair whose COSY J no 1D splitting of `atom`'s first-order multiplet matches (jAgree: 3 combined sd, at least 0.2 Hz). */
 export interface OneDDisagreement {
   readonly atom: string;
   readonly partner: string;
@@ -225,7 +225,7 @@ export function oneDDisagreements(d: Pick<DerivedSi, 'signals'>): OneDDisagreeme
 }
 
 /**
- * A partner's COSY J that no 1D splitting matches within 3 combined sd: said in the report, since
+ * A partner's COSY J that no 1D splitting matches (jAgree): said in the report, since
  * the J table and the dihedral estimates still use the COSY value (a first-order 1D multiplet only).
  */
 function cosyDisagreements(g: DerivedSignal, notes: string[]): void {

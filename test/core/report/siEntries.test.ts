@@ -111,6 +111,26 @@ describe('deriving SI entries with a 1D spectrum: the 1D multiplets get the COSY
     expect(Math.abs((x?.oneDJHz ?? 0) - 11.0)).toBeLessThan(0.1);
   });
 
+  it('1D and COSY J 0.15 Hz apart agree (the 0.2 Hz floor of checkPartners) even with σ far below that: the recorded J stand, no note', () => {
+    const sys: SpinSystem = {
+      observeMhz: 600,
+      spins: [{ label: 'H-1', ppm: 4.0, linewidthHz: 1.2 }, { label: 'H-2', ppm: 1.2, linewidthHz: 1 }, { label: 'H-3', ppm: 2.4, linewidthHz: 1 }],
+      couplings: [{ a: 'H-1', b: 'H-2', jHz: 11.0 }, { a: 'H-1', b: 'H-3', jHz: 4.5 }],
+    };
+    const spectrum1D = simulate1D(sys, p, { noise: { seed: 4, snr: 1500 } }).spectrum;
+    // Both recorded with σ 0.01 Hz, H-1/H-2 0.15 Hz off the simulated 11.0: beyond 3 combined sd, within the floor.
+    const sc = cosyOf([['H-1', 'H-2', 11.15, 4.0, 1.2], ['H-1', 'H-3', 4.5, 4.0, 2.4]]);
+    const src = [{ file: 'cosy.jdx.couplet.yaml', sidecar: { ...sc, couplings: sc.couplings.map((x) => ({ ...x, jSdHz: 0.01 })) } }];
+    const d = deriveSiEntries({ network: buildNetwork(src), sources: src, spectrum1D });
+    const a = d.signals.find((g) => g.labels[0] === 'H-1')!.analysis!;
+    expect(a.multiplicity).toBe('dd');
+    expect(3 * Math.hypot(a.couplings[0]!.sdHz, 0.01)).toBeLessThan(0.15);
+    expect(a.cosy.every((k) => k.agrees)).toBe(true);
+    const h1 = d.entries.find((e) => e.labels[0] === 'H-1')!;
+    expect(h1.couplings.map((x) => x.jHz)).toEqual([11.15, 4.5]);
+    expect(d.notes.join('\n')).not.toMatch(/H-1: the 1D splittings/);
+  });
+
   it('a partner 60 Hz away with J = 8 Hz (shift difference / J 7.5) makes the signal second order, though the simulated lines are first order', () => {
     const sys: SpinSystem = {
       observeMhz: 600,
