@@ -60,7 +60,7 @@ export interface MultipletAnalysis {
   /** integral / (reference integral per proton); null without a reference. */
   protons: number | null;
   lines: { hz: number; ppm: number; height: number }[];
-  /** Full width at half height of the tallest line, Hz. */
+  /** Full width at half height, Hz: of one fitted line when the lineshape was fitted (`fit`), else of the tallest line. */
   linewidthHz: number;
   /** The best first-order tree for the line maxima alone, kept for inspection even when flagged. */
   tree: TreeFit | null;

@@ -57,6 +57,8 @@ describe('lineshape fit of simulated first-order multiplets at good SNR (binomia
       });
       expect(Math.abs(a.centrePpm - 4.0) * MHZ).toBeLessThan(0.05);
       expect(a.fit!.chi2Reduced).toBeLessThan(1.5);
+      // The reported linewidth is that of one fitted line (the tallest maximum may be a blend).
+      expect(a.linewidthHz).toBe(a.fit!.fwhmHz);
     });
   }
 });
