@@ -133,7 +133,10 @@ const memo = new WeakMap<Spectrum1D, Map<string, LineshapeResult | null>>();
 export function analyseLineshape(s: Spectrum1D, inp: LineshapeInput): LineshapeResult | null {
   // Partner J only seed the search: rounded to 0.1 Hz, a re-adopted J that moved by a few mHz hits the memo.
   const rounded = { ...inp, partners: inp.partners.map((p) => ({ jHz: Math.round(p.jHz * 10) / 10, count: p.count })) };
-  const key = JSON.stringify([rounded.i0, rounded.i1, rounded.noise, rounded.partners]);
+  // The seeds (lines, width, maxima tree) follow from the region unless the caller's picking options
+  // (threshold, tree) change them: they are part of the key, so other options never get a stale fit.
+  const seeds = [inp.lines.map((l) => [l.hz, l.height]), inp.weakLines, inp.linewidthHz, inp.maximaTree && specOf(inp.maximaTree.groups)];
+  const key = JSON.stringify([rounded.i0, rounded.i1, rounded.noise, rounded.partners, seeds]);
   let bySpectrum = memo.get(s);
   if (!bySpectrum) memo.set(s, (bySpectrum = new Map()));
   if (bySpectrum.has(key)) return bySpectrum.get(key) ?? null;

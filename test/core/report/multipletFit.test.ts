@@ -63,6 +63,19 @@ describe('lineshape fit of simulated first-order multiplets at good SNR (binomia
   }
 });
 
+describe('the lineshape memo', () => {
+  it('reuses a fit only for the same seeds: picking options that change the lines get their own search', () => {
+    const sim = simulate1D(systemFor([{ jHz: 7.2, count: 3 }], 0.8), p, { noise: { seed: 11, snr: 3000 } });
+    const [from, to] = [4.0 + 16 / MHZ, 4.0 - 16 / MHZ];
+    const a = analyseMultiplet(sim.spectrum, from, to);
+    expect(analyseMultiplet(sim.spectrum, from, to).fit).toBe(a.fit);
+    // Lines below half the tallest dropped: the q's outer lines (1 : 3 : 3 : 1) are no longer seeds.
+    const b = analyseMultiplet(sim.spectrum, from, to, { minRelativeHeight: 0.5 });
+    expect(b.lines.length).toBeLessThan(a.lines.length);
+    expect(b.fit).not.toBe(a.fit);
+  });
+});
+
 describe('partly resolved multiplets: the fit gives what the line maxima cannot', () => {
   it('ddd with the small J equal to the linewidth (1.2 Hz lines): all three J within 0.1 Hz', () => {
     const groups = [{ jHz: 10.4, count: 1 }, { jHz: 4.2, count: 1 }, { jHz: 1.5, count: 1 }];
