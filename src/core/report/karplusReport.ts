@@ -7,6 +7,7 @@
 import type { CouplingNetwork, PairEntry } from '../network/network';
 import type { KarplusRequest, KarplusSubstituent } from '../notes/karplusRequests';
 import { KARPLUS_1959_RELATION, KARPLUS_1963_RELATION, KARPLUS_CAUTION, haasnootRelation, type KarplusRelation } from './karplus';
+import { degText } from './karplusFormat';
 import { anglesForJ, type AngleInterval } from './karplusInverse';
 import type { OneDDisagreement } from './siEntries';
 
@@ -79,7 +80,8 @@ function anglesWith(rel: KarplusRelation, subs: readonly KarplusSubstituent[], j
   const r = rangeOf(rel);
   // The band reaches the relation but J itself does not: the angles rest on the tail of the band only.
   if (inv.intervals.length > 0 && j > r.max) {
-    notes.push(`J lies above the largest value of ${rel.name} (${r.max.toFixed(2)} Hz, at φ = ${Math.round(Math.abs(r.atMax))}°); only the lower part of the band reaches it.`);
+    // Signed: with substituents the relation is not even in φ (its maximum is at one sign only); −180° is 180°.
+    notes.push(`J lies above the largest value of ${rel.name} (${r.max.toFixed(2)} Hz, at φ = ${degText(r.atMax <= -180 ? 180 : r.atMax)}); only the lower part of the band reaches it.`);
   }
   if (inv.intervals.length > 0 && j < r.min) notes.push(`J lies below the smallest value of ${rel.name} (${r.min.toFixed(2)} Hz); only the upper part of the band reaches it.`);
   return { relation: inv.relation, source: inv.source, substituents: subs, intervals: inv.intervals, notes };

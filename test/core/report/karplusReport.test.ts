@@ -67,6 +67,19 @@ describe('karplusEstimates: the adopted J of a requested pair, inverted through 
     expect(contains(byName(estimate(13.0, 0.05), /1963/), 180)).toBe(true);
   });
 
+  it('a J above the maximum of Haasnoot et al. with substituents names the signed angle of that maximum (the relation is not even in φ)', () => {
+    // Where the maximum lies, by scanning the relation itself (Haasnoot et al. 1980 with these ξ).
+    let atMax = 0;
+    for (let phi = -180; phi <= 180; phi += 0.5) if (haasnoot(phi, SUBS) > haasnoot(atMax, SUBS)) atMax = phi;
+    const top = haasnoot(atMax, SUBS);
+    expect(haasnoot(-atMax, SUBS)).toBeLessThan(top - 0.1); // the mirror angle is no maximum
+    const note = byName(estimate(top + 0.3, 0.2), /Haasnoot/).notes.find((n) => n.includes('lies above the largest value'));
+    const m = /at φ = (−?)(\d+)°/.exec(note ?? '');
+    expect(m, note).not.toBeNull();
+    const shown = (m![1] === '−' ? -1 : 1) * Number(m![2]);
+    expect(Math.abs(shown - atMax)).toBeLessThanOrEqual(1);
+  });
+
   it('a J between the 90° minimum and the maxima gives two ranges per half-turn, mirrored (±φ) by the even relations', () => {
     for (const name of [/1959/, /1963/]) {
       const r = byName(estimate(5, 0.2), name);
