@@ -36,7 +36,7 @@ function referenceText(c: ViewContext): string {
   return `reference ${r.pickId}${r.label.length ? ` (${r.label.join(', ')})` : ''} = ${r.protons} H`;
 }
 
-/** The fitted curve (model plus baseline) over the points the analysis used, as analyseMultiplet picks them. */
+/** The fitted curve over the points the analysis used, as analyseMultiplet picks them (`fit.model` holds the baseline already). */
 function fittedCurve(a: MultipletAnalysis, axis: Axis): MultipletView['fitted'] {
   if (!a.fit) return null;
   const p = [a.fromPpm, a.toPpm].map((v) => Math.round(ppmToPoint(axis, v)));
@@ -45,7 +45,7 @@ function fittedCurve(a: MultipletAnalysis, axis: Axis): MultipletView['fitted'] 
   const n = a.fit.model.length;
   if (i1 - i0 + 1 !== n || a.fit.baseline.length !== n) return null; // not the expected points: draw no curve rather than a shifted one
   const data = new Float32Array(n);
-  for (let k = 0; k < n; k++) data[k] = (a.fit.model[k] ?? 0) + (a.fit.baseline[k] ?? 0);
+  for (let k = 0; k < n; k++) data[k] = a.fit.model[k] ?? 0;
   return { fromPpm: pointToPpm(axis, i0), toPpm: pointToPpm(axis, i1), data };
 }
 

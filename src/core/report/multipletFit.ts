@@ -44,9 +44,9 @@ export interface LineshapeFit {
   excessMisfit: number;
   /** Information criterion (lower is better), comparable between trees on the same region. */
   criterion: number;
-  /** The model at the region's frequencies (for inspection and plots). */
+  /** The whole fitted model (multiplet plus baseline) at the region's frequencies (for inspection and plots). */
   model: Float64Array;
-  /** The fitted baseline at the region's frequencies. */
+  /** The fitted baseline alone at the region's frequencies (already part of `model`). */
   baseline: Float64Array;
 }
 
