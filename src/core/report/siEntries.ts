@@ -266,7 +266,8 @@ function couplingsOf(
     if (last && bothResolved && Math.abs((last.jHz) - c.jHz) <= groupHz) {
       const n = (last.count ?? 1) + c.count;
       last.jHz = ((last.jHz) * (last.count ?? 1) + c.jHz * c.count) / n;
-      last.sdHz = Math.hypot(last.sdHz ?? 0, c.sdHz) / 2;
+      // sd of the count-weighted mean (independent values): √Σ(n_k σ_k)² / n, as mergeNear.
+      last.sdHz = Math.hypot((last.sdHz ?? 0) * (last.count ?? 1), c.sdHz * c.count) / n;
       last.count = n;
       last.partners = [...(last.partners ?? []), ...c.partners];
       last.flags = [...new Set([...(last.flags ?? []), ...c.flags])];

@@ -43,6 +43,19 @@ describe('deriving SI entries from sidecars (no 1D spectrum)', () => {
     expect(d.notes.join(' ')).toMatch(/no 1D spectrum/);
   });
 
+  it('three partners within 0.5 Hz make a q whose sd is that of the mean of three: σ/√3 (analytic)', () => {
+    const three: Sidecar = {
+      schema: 'couplet-sidecar/1', data: { file: 'cosy.jdx', sha256: HASH },
+      picks: [cross('r1', 4.1, 2.0, ['H-1', 'H-2']), cross('r2', 4.1, 2.5, ['H-1', 'H-3']), cross('r3', 4.1, 3.0, ['H-1', 'H-4'])],
+      couplings: [c('H-1', 'H-2', 7.0, { jSdHz: 0.3 }), c('H-1', 'H-3', 7.2, { jSdHz: 0.3 }), c('H-1', 'H-4', 7.1, { jSdHz: 0.3 })],
+    };
+    const src = [{ file: 'cosy.jdx.couplet.yaml', sidecar: three }];
+    const h1 = deriveSiEntries({ network: buildNetwork(src), sources: src }).entries.find((e) => e.labels[0] === 'H-1')!;
+    expect(h1.couplings.map((x) => x.count)).toEqual([3]);
+    expect(h1.couplings[0]!.jHz).toBeCloseTo(7.1, 12);
+    expect(h1.couplings[0]!.sdHz).toBeCloseTo(0.3 / Math.sqrt(3), 12);
+  });
+
   it('gives the SI line (conventions of references.md, common practice)', () => {
     const r = compoundReport({ compound: 'x', sources, observeMhz: 400.13, solvent: 'C6D6' });
     expect(r.siLine.md).toBe('¹H NMR (400 MHz, C₆D₆) δ 6.30 (d, J = 15.6 Hz, 1H, H-5), 5.90 (br d, J = 15.6 Hz, 1H, H-6), ' +
