@@ -1,4 +1,5 @@
 import type { LineModel } from './lineshape';
+import { treeLines } from './splitting';
 
 /**
  * The F2 (or F1) pattern of one cross-peak multiplet: the 2^(1+p) lines at
@@ -31,25 +32,8 @@ export function groupSize(spec: ModelSpec, i: number): number {
 
 /** In-phase lines of the passive couplings: offsets from the centre (Hz) and binomial weights. */
 function passiveLines(spec: ModelSpec, theta: ArrayLike<number>): { offsets: number[]; weights: number[] } {
-  let offsets = [0];
-  let weights = [1];
-  for (let i = 0; i < spec.passives; i++) {
-    const jp = boundedCoupling(theta[passiveIndex(spec, i)] ?? 0);
-    const n = groupSize(spec, i);
-    const no: number[] = [];
-    const nw: number[] = [];
-    let c = 1; // C(n, k), updated as k runs
-    for (let k = 0; k <= n; k++) {
-      offsets.forEach((o, q) => {
-        no.push(o + (n / 2 - k) * jp);
-        nw.push((weights[q] ?? 0) * c);
-      });
-      c = (c * (n - k)) / (k + 1);
-    }
-    offsets = no;
-    weights = nw;
-  }
-  return { offsets, weights };
+  const js = Array.from({ length: spec.passives }, (_, i) => boundedCoupling(theta[passiveIndex(spec, i)] ?? 0));
+  return treeLines(js, js.map((_, i) => groupSize(spec, i)));
 }
 
 export function hasMix(spec: ModelSpec): boolean {

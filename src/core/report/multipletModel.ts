@@ -9,6 +9,9 @@
  */
 import { Matrix, solve } from 'ml-matrix';
 import type { LineModel } from '../measure/lineshape';
+import { treeLines } from '../measure/splitting';
+
+export { treeLines };
 
 /** A splitting tree: coupling J_k (Hz) to n_k equivalent partners. */
 export interface TreeSpec {
@@ -44,28 +47,6 @@ export function mixOf(l: ModelLayout, theta: ArrayLike<number>): number {
 
 export function jsOf(l: ModelLayout, theta: ArrayLike<number>): number[] {
   return l.counts.map((_, k) => Math.abs(theta[1 + k] ?? 0));
-}
-
-/** Line offsets from the centre (Hz) and binomial weights of every line of the tree (unmerged). */
-export function treeLines(js: readonly number[], counts: readonly number[]): { offsets: number[]; weights: number[] } {
-  let offsets = [0];
-  let weights = [1];
-  js.forEach((j, k) => {
-    const n = counts[k] ?? 1;
-    const no: number[] = [];
-    const nw: number[] = [];
-    let c = 1; // C(n, m), updated as m runs
-    for (let m = 0; m <= n; m++) {
-      offsets.forEach((o, q) => {
-        no.push(o + (n / 2 - m) * j);
-        nw.push((weights[q] ?? 0) * c);
-      });
-      c = (c * (n - m)) / (m + 1);
-    }
-    offsets = no;
-    weights = nw;
-  });
-  return { offsets, weights };
 }
 
 /** The multiplet shape (amplitude 1) at the region's frequencies. */
