@@ -1,7 +1,7 @@
 /** `couplet measure` on a 1D ¹H spectrum: the first-order analysis of a multiplet region. */
 import { pickMultiplets1D } from '../core/peaks';
 import { analyseMultiplet, type MultipletAnalysis } from '../core/report/multiplet';
-import { autoRegion, multipletAt } from '../core/report/multipletRegion';
+import { MAX_DISTANCE_PPM, autoRegion, multipletAt } from '../core/report/multipletRegion';
 import type { Spectrum1D } from '../core/spectrum/spectrum';
 import { InputError, MeasureFailed } from './errors';
 import { fixed, formatTable, round } from './table';
@@ -64,7 +64,7 @@ export function measure1D(file: string, s: Spectrum1D, r: Region1D, threshold: n
   const mhz = s.axis.observeMhz;
   if (r.f2 !== undefined) {
     const i = multipletAt(multiplets, r.f2, mhz);
-    if (i === null) throw new MeasureFailed(`${file}: no multiplet above the threshold (try --from PPM --to PPM)`);
+    if (i === null) throw new MeasureFailed(`${file}: no multiplet above the threshold within ${MAX_DISTANCE_PPM} ppm of ${r.f2} ppm (try --from PPM --to PPM)`);
     const [from, to] = autoRegion(multiplets, i, mhz);
     return [analyse(file, s, from, to)];
   }

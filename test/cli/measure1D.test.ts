@@ -46,6 +46,13 @@ describe('couplet measure on a 1D spectrum: the multiplet analysis of a region',
     expect(r.out).toContain('Second order is judged here from roofing alone');
   });
 
+  it('--f2 in an empty stretch analyses no far-away multiplet: exit 1 and says why (the 0.1 ppm snap of the panel and of 2D --f2/--f1)', () => {
+    const r = run('measure', sample('quellopyranol', '1h.jdx'), '--f2', '9.5', '--json');
+    expect(r.code).toBe(1);
+    expect(r.out).toBe('');
+    expect(r.err).toContain('1h.jdx: no multiplet above the threshold within 0.1 ppm of 9.5 ppm');
+  });
+
   it('bad regions are usage errors (exit 2) that say what is wrong', () => {
     const half = run('measure', sample('quellopyranol', '1h.jdx'), '--from', '3.86');
     expect(half.code).toBe(2);

@@ -20,11 +20,17 @@ export function autoRegion(multiplets: readonly Multiplet1D[], i: number, observ
   return [from, to];
 }
 
-/** Index of the multiplet whose extent (widened by the tails) holds ppm, else the nearest; null when none was picked. */
+/** Farthest a shift may lie outside a multiplet's extent and still mean it, ppm (as the panel and the 2D snap). */
+export const MAX_DISTANCE_PPM = 0.1;
+
+/**
+ * Index of the multiplet whose extent (widened by the tails) holds ppm, else the nearest within
+ * MAX_DISTANCE_PPM; null when none is that close (a shift in an empty stretch means no multiplet).
+ */
 export function multipletAt(multiplets: readonly Multiplet1D[], ppm: number, observeMhz: number): number | null {
   const tail = TAIL_HZ / observeMhz;
   let best: number | null = null;
-  let bestDistance = Infinity;
+  let bestDistance = MAX_DISTANCE_PPM;
   multiplets.forEach((m, i) => {
     const d = ppm > m.fromPpm + tail ? ppm - m.fromPpm - tail : ppm < m.toPpm - tail ? m.toPpm - tail - ppm : 0;
     if (d < bestDistance) {
