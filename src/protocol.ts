@@ -307,7 +307,7 @@ export interface AnalyseRequest {
 
 /**
  * 1D: set a multiplet region (Shift+drag). `peakIndex` is the multiplet whose pick gets it (a new
- * pick when it has none); null makes a new pick inside the region.
+ * pick when it has none); null names no multiplet, which the host refuses (the panel does not send it).
  */
 export interface SetRegionRequest {
   readonly type: 'setRegion';

@@ -47,7 +47,8 @@ const overlaps = (a0: number, a1: number, b0: number, b1: number): boolean =>
 /**
  * The region a Shift+drag sets, from its two ends in ppm: on the selected multiplet when the
  * region overlaps it, else on the multiplet whose centre lies in the region (the one nearest the
- * region's middle), else on a new pick (peakIndex null).
+ * region's middle), else peakIndex null: no multiplet there (the host sets regions on picked
+ * multiplets only, so nothing is sent; regionStatus says so).
  */
 export function regionRequest(ppmA: number, ppmB: number, peaks: readonly PeakView[], selected: number | null): SetRegionRequest {
   const fromPpm = Math.max(ppmA, ppmB);
@@ -57,6 +58,14 @@ export function regionRequest(ppmA: number, ppmB: number, peaks: readonly PeakVi
   const mid = (fromPpm + toPpm) / 2;
   const within = peaks.filter((p) => p.f2Ppm <= fromPpm && p.f2Ppm >= toPpm).sort((p, q) => Math.abs(p.f2Ppm - mid) - Math.abs(q.f2Ppm - mid));
   return { type: 'setRegion', peakIndex: within[0]?.index ?? null, fromPpm, toPpm };
+}
+
+/** The status line after a Shift+drag: what was asked, or why nothing was (no multiplet in the region). */
+export function regionStatus(r: SetRegionRequest): string {
+  const span = `${r.fromPpm.toFixed(4)}–${r.toPpm.toFixed(4)} ppm`;
+  return r.peakIndex === null
+    ? `No picked multiplet in ${span}: no region set (a region belongs to a multiplet the picking found; drag over its lines).`
+    : `Region ${span} set (undo takes it back).`;
 }
 
 /** The analysis as text for the measurement area: numbers first, then a caution and the notes. */

@@ -9,7 +9,7 @@ import { step, type CacheEntry } from './contourCache';
 import type { Action } from './keys';
 import { contourLevels, levelsKey, levelUnit, usableContours } from './levels';
 import { MeasureState } from './measureState';
-import { MultipletState, multipletLines, regionRequest } from './multipletState';
+import { MultipletState, multipletLines, regionRequest, regionStatus } from './multipletState';
 import type { SavedState } from './savedState';
 import { peakAt, pickOn } from './hitTest';
 import { layoutFor, type Frame, type Layout } from './frame';
@@ -232,14 +232,17 @@ export class Panel {
     this.el.traceText.textContent = multipletLines(v, this.settings.jDecimals).join('\n');
   }
 
-  /** Shift+drag along a 1D trace (plot x in CSS px): the region of the multiplet there, or a new pick. */
+  /** Shift+drag along a 1D trace (plot x in CSS px): the region of the multiplet there (none is set where no multiplet is). */
   setRegion(x0: number, x1: number): void {
     if (this.sidecar.blocked) return this.status(`Sidecar not editable: ${this.sidecar.blocked}`);
     const xs = xScale(this.view, this.layout.plot);
     const r = regionRequest(xs.invert(x0), xs.invert(x1), this.peaks, this.selected);
-    this.rpc.post(r);
-    if (r.peakIndex !== null && r.peakIndex !== this.selected) this.select(r.peakIndex);
-    this.status(`Region ${r.fromPpm.toFixed(4)}–${r.toPpm.toFixed(4)} ppm ${r.peakIndex === null ? 'on a new pick' : 'set'} (undo takes it back).`);
+    // The host refuses a region on no multiplet: say why here instead of sending it.
+    if (r.peakIndex !== null) {
+      this.rpc.post(r);
+      if (r.peakIndex !== this.selected) this.select(r.peakIndex);
+    }
+    this.status(regionStatus(r));
   }
 
   measure(): void {

@@ -139,7 +139,7 @@ export class MultipletSession {
     return promise;
   }
 
-  /** Sets a region (Shift+drag or the palette) on the multiplet's pick, or on a new pick; null clears it. */
+  /** Sets a region (Shift+drag or the palette) on the multiplet's pick (a new pick when it has none); a null region clears it. */
   async setRegion(index: number | null, region: Region | null): Promise<boolean> {
     const m = index === null ? undefined : this.model.multiplets[index];
     if (index !== null && !m) return this.ports.refuse(`${this.model.fileName} has no multiplet ${index}`);

@@ -2,7 +2,7 @@
 import { describe, expect, it } from 'vitest';
 import type { MultipletView, PeakView } from '../../src/protocol';
 import type { FromWebview } from '../../src/protocol';
-import { MultipletState, multipletLines, regionRequest } from '../../webview/multipletState';
+import { MultipletState, multipletLines, regionRequest, regionStatus } from '../../webview/multipletState';
 import { Requests, type Rpc } from '../../webview/rpc';
 
 const peak = (index: number, f2Ppm: number, half = 0.02): PeakView =>
@@ -21,8 +21,11 @@ describe('regionRequest (Shift+drag along the 1D trace)', () => {
     expect(regionRequest(3.9, 3.5, peaks, null).peakIndex).toBe(1); // middle 3.70: 3.62 is nearer than 3.82
   });
 
-  it('makes a new pick (peakIndex null) where no multiplet is', () => {
-    expect(regionRequest(2.6, 2.5, peaks, 2)).toEqual({ type: 'setRegion', peakIndex: null, fromPpm: 2.6, toPpm: 2.5 });
+  it('names no multiplet (peakIndex null) where none is, and the status says no region was set (the host refuses one there)', () => {
+    const r = regionRequest(2.6, 2.5, peaks, 2);
+    expect(r).toEqual({ type: 'setRegion', peakIndex: null, fromPpm: 2.6, toPpm: 2.5 });
+    expect(regionStatus(r)).toBe('No picked multiplet in 2.6000–2.5000 ppm: no region set (a region belongs to a multiplet the picking found; drag over its lines).');
+    expect(regionStatus(regionRequest(3.78, 3.86, peaks, 0))).toBe('Region 3.8600–3.7800 ppm set (undo takes it back).');
   });
 });
 
